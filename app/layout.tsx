@@ -1,0 +1,18 @@
+import type { Metadata } from 'next';
+import type { ReactNode } from 'react';
+import { publicSans, plexMono } from './fonts';
+import './globals.css';
+
+export const metadata: Metadata = {
+  title: { default: 'Trailbench — measured gear tests', template: '%s · Trailbench' },
+  description:
+    'A journal of measured field tests of lights, power banks, 12 V batteries, solar panels and radios, compared by value.',
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en" className={`${publicSans.variable} ${plexMono.variable}`}>
+      <body className="min-h-screen bg-paper text-ink antialiased">{children}</body>
+    </html>
+  );
+}
