@@ -1,0 +1,351 @@
+import { sql } from 'drizzle-orm';
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+
+/*
+ * Measured physical quantities are REAL in the canonical units of lib/measure (g, Wh, W, lm, cd, lx, m, s, °C,
+ * V, A, Ah), unrounded. Money is an integer in minor units with an ISO 4217 code.
+ */
+
+const createdAt = () =>
+  integer('created_at', { mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`(unixepoch('subsec') * 1000)`);
+
+export const ROLES = ['reader', 'reviewer', 'editor', 'admin'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** Gear items and field tests move through these states (reviews have their own, see reviewRevisions). */
+export const RECORD_STATES = ['draft', 'in-review', 'changes-requested', 'approved'] as const;
+export type RecordState = (typeof RECORD_STATES)[number];
+
+export const REVIEW_STATES = ['draft', 'in-review', 'changes-requested', 'approved', 'published', 'retracted'] as const;
+export type ReviewState = (typeof REVIEW_STATES)[number];
+
+export const users = sqliteTable(
+  'users',
+  {
+    id: text('id').primaryKey(),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    passwordHash: text('password_hash'),
+    role: text('role', { enum: ROLES }).notNull().default('reader'),
+    /** Bumped on sign-out, role change and disabling: every session carrying an older version ends. */
+    sessionVersion: integer('session_version').notNull().default(1),
+    disabledAt: integer('disabled_at', { mode: 'timestamp_ms' }),
+    isDemo: integer('is_demo', { mode: 'boolean' }).notNull().default(false),
+    unitPreference: text('unit_preference', { enum: ['metric', 'imperial'] }).notNull().default('metric'),
+    emailVerifiedAt: integer('email_verified_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('users_email_unique').on(t.email)],
+);
+
+/** Magic sign-in links: only a hash of the token is stored; spent on the confirm button, never on GET. */
+export const magicLinkTokens = sqliteTable(
+  'magic_link_tokens',
+  {
+    tokenHash: text('token_hash').primaryKey(),
+    email: text('email').notNull(),
+    expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+    usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('magic_link_tokens_email').on(t.email)],
+);
+
+/** Security-relevant events: failed sign-ins, rate limiting, role changes, disabling. */
+export const authEvents = sqliteTable(
+  'auth_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind').notNull(),
+    email: text('email'),
+    userId: text('user_id').references(() => users.id, { onDelete: 'set null' }),
+    actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    detail: text('detail'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('auth_events_kind').on(t.kind, t.createdAt)],
+);
+
+export const roleChanges = sqliteTable('role_changes', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: text('user_id')
+    .notNull()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  changedById: text('changed_by_id').references(() => users.id, { onDelete: 'set null' }),
+  fromRole: text('from_role', { enum: ROLES }).notNull(),
+  toRole: text('to_role', { enum: ROLES }).notNull(),
+  createdAt: createdAt(),
+});
+
+export const gearItems = sqliteTable(
+  'gear_items',
+  {
+    id: text('id').primaryKey(),
+    slug: text('slug').notNull(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id),
+    name: text('name').notNull(),
+    maker: text('maker').notNull(),
+    /** Category id of lib/measure: light, power-bank, battery-12v, solar-panel, radio, cable-adapter, other. */
+    category: text('category').notNull(),
+    kind: text('kind'),
+    modelYear: integer('model_year'),
+    priceMinor: integer('price_minor'),
+    priceCurrency: text('price_currency'),
+    pricePaidOn: text('price_paid_on'),
+    notes: text('notes').notNull().default(''),
+    status: text('status', { enum: RECORD_STATES }).notNull().default('draft'),
+    approvedAt: integer('approved_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [
+    uniqueIndex('gear_items_slug_unique').on(t.slug),
+    index('gear_items_category').on(t.category, t.status),
+    index('gear_items_owner').on(t.ownerId),
+  ],
+);
+
+export const fieldTests = sqliteTable(
+  'field_tests',
+  {
+    id: text('id').primaryKey(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id),
+    kind: text('kind').notNull(),
+    testedAt: integer('tested_at', { mode: 'timestamp_ms' }).notNull(),
+    placeLabel: text('place_label').notNull().default(''),
+    sky: text('sky', { enum: ['clear', 'thin-cloud', 'broken-cloud', 'overcast', 'rain', 'indoor'] }),
+    ambientC: real('ambient_c'),
+    /** JSON array of { name, accuracy } describing the instruments used. */
+    instruments: text('instruments', { mode: 'json' }).$type<{ name: string; accuracy?: string }[]>().notNull().default(sql`'[]'`),
+    methodNotes: text('method_notes').notNull().default(''),
+    status: text('status', { enum: RECORD_STATES }).notNull().default('draft'),
+    approvedAt: integer('approved_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('field_tests_owner').on(t.ownerId)],
+);
+
+export const fieldTestItems = sqliteTable(
+  'field_test_items',
+  {
+    fieldTestId: text('field_test_id')
+      .notNull()
+      .references(() => fieldTests.id, { onDelete: 'cascade' }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+  },
+  (t) => [primaryKey({ columns: [t.fieldTestId, t.gearItemId] })],
+);
+
+export const trials = sqliteTable(
+  'trials',
+  {
+    id: text('id').primaryKey(),
+    fieldTestId: text('field_test_id')
+      .notNull()
+      .references(() => fieldTests.id, { onDelete: 'cascade' }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    label: text('label').notNull().default(''),
+    /** Clock time the item was switched on; t = 0 for logs with clock timestamps. */
+    switchedOnAt: integer('switched_on_at', { mode: 'timestamp_ms' }),
+    /** Typed values such as a scale reading: { specKey: value } in canonical units. */
+    typedValues: text('typed_values', { mode: 'json' }).$type<Record<string, number>>(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('trials_field_test').on(t.fieldTestId)],
+);
+
+/** One row per sample of a trial's readings series; t in seconds since switch-on. */
+export const readings = sqliteTable(
+  'readings',
+  {
+    trialId: text('trial_id')
+      .notNull()
+      .references(() => trials.id, { onDelete: 'cascade' }),
+    seq: integer('seq').notNull(),
+    t: real('t').notNull(),
+    value: real('value'),
+    watts: real('watts'),
+    volts: real('volts'),
+    amps: real('amps'),
+  },
+  (t) => [primaryKey({ columns: [t.trialId, t.seq] })],
+);
+
+export const specs = sqliteTable(
+  'specs',
+  {
+    id: text('id').primaryKey(),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    /** SpecKey of lib/measure; the unit is implied by the key (canonical). */
+    key: text('key').notNull(),
+    /** Light or device mode the figure belongs to ('' for the item as a whole). */
+    mode: text('mode').notNull().default(''),
+    basis: text('basis', { enum: ['claimed', 'measured'] }).notNull(),
+    value: real('value').notNull(),
+    sd: real('sd'),
+    n: integer('n'),
+    /** Where a claim came from: packaging, manual, makers-site. */
+    claimSource: text('claim_source'),
+    fieldTestId: text('field_test_id').references(() => fieldTests.id, { onDelete: 'set null' }),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [uniqueIndex('specs_item_key_mode_basis').on(t.gearItemId, t.key, t.mode, t.basis)],
+);
+
+export const reviews = sqliteTable(
+  'reviews',
+  {
+    id: text('id').primaryKey(),
+    slug: text('slug').notNull(),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('reviews_slug_unique').on(t.slug)],
+);
+
+export const reviewItems = sqliteTable(
+  'review_items',
+  {
+    reviewId: text('review_id')
+      .notNull()
+      .references(() => reviews.id, { onDelete: 'cascade' }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+  },
+  (t) => [primaryKey({ columns: [t.reviewId, t.gearItemId] })],
+);
+
+export const DISCLOSURES = ['bought-retail', 'loaned-by-maker', 'given-by-maker', 'sponsored'] as const;
+
+export const reviewRevisions = sqliteTable(
+  'review_revisions',
+  {
+    id: text('id').primaryKey(),
+    reviewId: text('review_id')
+      .notNull()
+      .references(() => reviews.id, { onDelete: 'cascade' }),
+    number: integer('number').notNull(),
+    title: text('title').notNull(),
+    summary: text('summary').notNull().default(''),
+    verdict: text('verdict').notNull().default(''),
+    body: text('body').notNull().default(''),
+    disclosure: text('disclosure', { enum: DISCLOSURES }),
+    disclosureNote: text('disclosure_note').notNull().default(''),
+    correctionNote: text('correction_note'),
+    state: text('state', { enum: REVIEW_STATES }).notNull().default('draft'),
+    publishedAt: integer('published_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [uniqueIndex('review_revisions_number').on(t.reviewId, t.number)],
+);
+
+export const reviewStateEvents = sqliteTable(
+  'review_state_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: text('revision_id')
+      .notNull()
+      .references(() => reviewRevisions.id, { onDelete: 'cascade' }),
+    fromState: text('from_state', { enum: REVIEW_STATES }),
+    toState: text('to_state', { enum: REVIEW_STATES }).notNull(),
+    actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    comment: text('comment').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('review_state_events_revision').on(t.revisionId)],
+);
+
+export const photos = sqliteTable(
+  'photos',
+  {
+    id: text('id').primaryKey(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id),
+    gearItemId: text('gear_item_id').references(() => gearItems.id, { onDelete: 'cascade' }),
+    /** Content-hashed base name of the stored variants under uploads/. */
+    storageKey: text('storage_key').notNull(),
+    width: integer('width').notNull(),
+    height: integer('height').notNull(),
+    bytes: integer('bytes').notNull(),
+    altText: text('alt_text').notNull().default(''),
+    position: integer('position').notNull().default(0),
+    createdAt: createdAt(),
+  },
+  (t) => [index('photos_item').on(t.gearItemId)],
+);
+
+export const kits = sqliteTable(
+  'kits',
+  {
+    id: text('id').primaryKey(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    purpose: text('purpose').notNull().default(''),
+    tripDays: integer('trip_days').notNull().default(1),
+    shareToken: text('share_token'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [uniqueIndex('kits_share_token').on(t.shareToken), index('kits_owner').on(t.ownerId)],
+);
+
+export const kitEntries = sqliteTable(
+  'kit_entries',
+  {
+    id: text('id').primaryKey(),
+    kitId: text('kit_id')
+      .notNull()
+      .references(() => kits.id, { onDelete: 'cascade' }),
+    gearItemId: text('gear_item_id').references(() => gearItems.id, { onDelete: 'set null' }),
+    quantity: integer('quantity').notNull().default(1),
+    /** Free-form entries for things not in the catalog. */
+    freeName: text('free_name'),
+    freeMassG: real('free_mass_g'),
+    freePriceMinor: integer('free_price_minor'),
+    freePriceCurrency: text('free_price_currency'),
+    freeDrawW: real('free_draw_w'),
+    position: integer('position').notNull().default(0),
+  },
+  (t) => [index('kit_entries_kit').on(t.kitId)],
+);
+
+/** Every message the app sends while no SMTP_URL is set, captured by the local SMTP server: the admin outbox. */
+export const capturedEmails = sqliteTable('captured_emails', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  fromAddress: text('from_address').notNull(),
+  toAddress: text('to_address').notNull(),
+  subject: text('subject').notNull(),
+  textBody: text('text_body').notNull().default(''),
+  htmlBody: text('html_body'),
+  createdAt: createdAt(),
+});
+
+export type User = typeof users.$inferSelect;
+export type GearItem = typeof gearItems.$inferSelect;
