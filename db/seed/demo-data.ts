@@ -14,8 +14,9 @@
  *   powerDraw always names its mode ('high', 'receive', 'transmit', 'running' …).
  * - Ids and slugs are stable: the seed inserts only what is missing, so it can run any number of times.
  */
+import { energyWh, lightRuntime, solarOutput, summarize, type Category, type SpecKey } from '../../lib/measure';
 import type { RecordState, ReviewState, Role } from '../schema';
-import { dischargeLog, lightFadeLog, meanSd, piecewiseLog, solarLog, trapezoidWh, type SeriesRow } from './series';
+import { dischargeLog, lightFadeLog, piecewiseLog, solarLog, type SeriesRow } from './series';
 
 /* ------------------------------------------------------------------------------------------------ */
 /* Accounts                                                                                         */
@@ -61,19 +62,8 @@ export type DemoMaker = (typeof DEMO_MAKERS)[number];
 
 export const DEMO_PLACES = { meadow: 'Upper Meadow camp', bench: 'Lakeshore test bench' } as const;
 
-export type DemoCategory = 'light' | 'power-bank' | 'battery-12v' | 'solar-panel' | 'radio' | 'cable-adapter' | 'other';
-export type DemoSpecKey =
-  | 'mass'
-  | 'luminousFlux'
-  | 'runtime'
-  | 'peakIntensity'
-  | 'ratedEnergy'
-  | 'deliveredEnergy'
-  | 'ratedPower'
-  | 'powerDraw'
-  | 'transmitPower'
-  | 'supplyVoltage'
-  | 'continuousPower';
+export type DemoCategory = Category;
+export type DemoSpecKey = SpecKey;
 export type ClaimSource = 'packaging' | 'manual' | 'makers-site';
 
 export interface DemoClaim {
@@ -833,12 +823,33 @@ function trialReadings(testId: string, trialId: string): SeriesRow[] {
   return found.readings;
 }
 
-/** Runtime of each Hearthglow trial, exact by hand from the generator (see lightFadeLog). */
-export const HEARTHGLOW_RUNTIMES_S = [lanternTrialA.runtimeS, lanternTrialB.runtimeS] as const;
+/** The runtime of a light trial by lib/measure (to 10 % of the 30 s output). */
+function trialRuntimeS(testId: string, trialId: string): number {
+  const { runtimeS } = lightRuntime(trialReadings(testId, trialId).map((r) => ({ t: r.t, value: r.value ?? 0 })));
+  if (runtimeS === null) throw new Error(`Demo trial ${trialId} ends before 10 % output`);
+  return runtimeS;
+}
 
-const hearthglowRuntime = meanSd(HEARTHGLOW_RUNTIMES_S);
-const cellhiveDeliveredWh = trapezoidWh(trialReadings('demo-ft-banks-energy', 'demo-trial-cellhive-discharge'));
-const pocketcellDeliveredWh = trapezoidWh(trialReadings('demo-ft-banks-energy', 'demo-trial-pocketcell-discharge'));
+/** Energy delivered in a discharge trial by lib/measure (trapezoidal rule over V × A). */
+function trialDeliveredWh(testId: string, trialId: string): number {
+  return energyWh(trialReadings(testId, trialId).map((r) => ({ t: r.t, watts: r.watts ?? 0 })));
+}
+
+/**
+ * Runtime of each Hearthglow trial. lib/measure computes it from the readings; the generator's
+ * shape makes it exact by hand as well (see lightFadeLog), and the seed checks the two agree.
+ */
+export const HEARTHGLOW_RUNTIMES_S = [
+  trialRuntimeS('demo-ft-hearthglow-runtime', 'demo-trial-hearthglow-a'),
+  trialRuntimeS('demo-ft-hearthglow-runtime', 'demo-trial-hearthglow-b'),
+] as const;
+for (const [i, expected] of [lanternTrialA.runtimeS, lanternTrialB.runtimeS].entries()) {
+  if (Math.abs((HEARTHGLOW_RUNTIMES_S[i] ?? 0) - expected) > 1e-6) throw new Error('Demo lantern log: lib/measure and the closed form disagree');
+}
+
+const hearthglowRuntime = summarize(HEARTHGLOW_RUNTIMES_S);
+const cellhiveDeliveredWh = trialDeliveredWh('demo-ft-banks-energy', 'demo-trial-cellhive-discharge');
+const pocketcellDeliveredWh = trialDeliveredWh('demo-ft-banks-energy', 'demo-trial-pocketcell-discharge');
 
 /**
  * Measured specs, each from an approved field test and computed from its trials (mean ± sd over
@@ -849,7 +860,7 @@ export const DEMO_MEASURED_SPECS: readonly DemoMeasuredSpec[] = [
   { item: 'voltmoth-cellhive-20', key: 'deliveredEnergy', mode: '', value: cellhiveDeliveredWh, sd: null, n: 1, fieldTestId: 'demo-ft-banks-energy' },
   { item: 'northcairn-pocketcell-10', key: 'deliveredEnergy', mode: '', value: pocketcellDeliveredWh, sd: null, n: 1, fieldTestId: 'demo-ft-banks-energy' },
   ...Object.entries(MASS_WEIGHINGS).map(([item, values]): DemoMeasuredSpec => {
-    const s = meanSd(values);
+    const s = summarize(values);
     return { item, key: 'mass', mode: '', value: s.mean, sd: s.sd, n: s.n, fieldTestId: 'demo-ft-mass-check' };
   }),
 ];
@@ -923,11 +934,13 @@ const h = (seconds: number) => (seconds / 3600).toFixed(2);
 const wh = (value: number) => value.toFixed(1);
 const pct = (share: number) => `${Math.round(share * 100)} %`;
 
-/** "44.6 W (74 % of rating)": the mean of a solar trial's logged watts. */
+/** "44.6 W (74 % of rating)": the time-weighted mean of a solar trial by lib/measure. */
 function solarMean(testId: string, trialId: string, ratedW: number): string {
-  const rows = trialReadings(testId, trialId);
-  const mean = rows.reduce((sum, r) => sum + (r.watts ?? 0), 0) / rows.length;
-  return `${mean.toFixed(1)} W (${pct(mean / ratedW)} of rating)`;
+  const { meanW, shareOfRating } = solarOutput(
+    trialReadings(testId, trialId).map((r) => ({ t: r.t, watts: r.watts ?? 0 })),
+    ratedW,
+  );
+  return `${meanW.toFixed(1)} W (${pct(shareOfRating)} of rating)`;
 }
 
 function reviewsData(): DemoReview[] {

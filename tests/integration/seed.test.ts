@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyPassword } from '@/lib/auth/password';
+import { energyWh, isCategory, lightRuntime, summarize, valueRatios, type Specs } from '@/lib/measure';
 import { ROLES } from '@/db/schema';
 import type { Db } from '@/db/connection';
 import { createTestDb } from '@/db/test-db';
@@ -77,6 +78,24 @@ describe('seedDemo on a fresh database', () => {
     expect(withoutMass).toEqual([]);
   });
 
+  it('gives every item figures lib/measure can turn into value ratios', () => {
+    const items = all<{ id: string; category: string; price_minor: number; price_currency: string }>('select id, category, price_minor, price_currency from gear_items');
+    const ratioIds = new Map<string, string[]>();
+    for (const item of items) {
+      expect(isCategory(item.category)).toBe(true);
+      if (!isCategory(item.category)) continue;
+      const specs: Record<string, { claimed?: number; measured?: number }> = {};
+      for (const s of all<{ key: string; basis: 'claimed' | 'measured'; value: number }>("select key, basis, value from specs where gear_item_id = ? and mode = ''", item.id)) {
+        specs[s.key] = { ...specs[s.key], [s.basis]: s.value };
+      }
+      const ratios = valueRatios(item.category, specs as Specs, { amountMinor: item.price_minor, currency: item.price_currency });
+      ratioIds.set(item.id, ratios.map((r) => r.id));
+    }
+    expect(ratioIds.get('demo-gear-glowmere-hearthglow-400')).toEqual(expect.arrayContaining(['lm-per-g', 'lm-per-money', 'measured-vs-claimed:runtime', 'measured-vs-claimed:mass']));
+    expect(ratioIds.get('demo-gear-voltmoth-cellhive-20')).toEqual(expect.arrayContaining(['wh-per-kg', 'delivered-wh-per-money', 'delivered-vs-rated']));
+    expect(ratioIds.get('demo-gear-brackenfold-sunfold-60')).toEqual(expect.arrayContaining(['w-per-kg', 'w-per-money']));
+  });
+
   it('creates demo users of every role at the demo domain, marked as demo, with working passwords', async () => {
     const users = all<{ email: string; role: string; is_demo: number; password_hash: string }>('select email, role, is_demo, password_hash from users');
     expect(new Set(users.map((u) => u.role))).toEqual(new Set(ROLES));
@@ -109,6 +128,7 @@ describe('seedDemo on a fresh database', () => {
     expect(sideBySide.length).toBeGreaterThan(0);
   });
 
+  // Stored results equal lib/measure on the stored readings; the lantern's runtimes are also checked by hand.
   it('stores measured specs that follow from their approved field test readings', () => {
     const measured = all<{ gear_item_id: string; key: string; value: number; sd: number | null; n: number; field_test_id: string; status: string }>(
       "select s.gear_item_id, s.key, s.value, s.sd, s.n, s.field_test_id, f.status from specs s join field_tests f on f.id = s.field_test_id where s.basis = 'measured'",
@@ -126,34 +146,16 @@ describe('seedDemo on a fresh database', () => {
       expect(trials.length).toBe(m.n);
       let perTrial: number[];
       if (m.key === 'runtime') {
-        // Runtime to 10 % of the output at t = 30 s, by linear interpolation between samples.
-        perTrial = trials.map((t) => {
-          const rows = series(t.id).map((r) => ({ t: r.t, v: r.value ?? 0 }));
-          const i30 = rows.findIndex((r) => r.t >= 30);
-          const a = rows[i30 - 1]!;
-          const b = rows[i30]!;
-          const ref = a.v + ((b.v - a.v) * (30 - a.t)) / (b.t - a.t);
-          for (let i = 1; i < rows.length; i += 1) {
-            const p = rows[i - 1]!;
-            const q = rows[i]!;
-            if (q.t > 30 && q.v <= 0.1 * ref) return p.t + ((p.v - 0.1 * ref) * (q.t - p.t)) / (p.v - q.v);
-          }
-          throw new Error('log ends before 10 %');
-        });
+        perTrial = trials.map((t) => lightRuntime(series(t.id).map((r) => ({ t: r.t, value: r.value ?? 0 }))).runtimeS ?? Number.NaN);
       } else if (m.key === 'deliveredEnergy') {
-        // Trapezoidal rule over the logged watts, J → Wh.
-        perTrial = trials.map((t) => {
-          const rows = series(t.id);
-          let joules = 0;
-          for (let i = 1; i < rows.length; i += 1) joules += ((rows[i]!.t - rows[i - 1]!.t) * ((rows[i]!.watts ?? 0) + (rows[i - 1]!.watts ?? 0))) / 2;
-          return joules / 3600;
-        });
+        perTrial = trials.map((t) => energyWh(series(t.id).map((r) => ({ t: r.t, watts: r.watts ?? 0 }))));
       } else {
         perTrial = trials.map((t) => (JSON.parse(t.typed_values ?? '{}') as Record<string, number>)[m.key] ?? Number.NaN);
       }
-      const mean = perTrial.reduce((s, v) => s + v, 0) / perTrial.length;
-      expect(m.value).toBeCloseTo(mean, 6);
-      if (m.n === 1) expect(m.sd).toBeNull();
+      const summary = summarize(perTrial);
+      expect(m.value).toBeCloseTo(summary.mean, 9);
+      if (summary.sd === null) expect(m.sd).toBeNull();
+      else expect(m.sd).toBeCloseTo(summary.sd, 9);
     }
 
     // The lantern's two runtimes, exact by hand: 16800 − 6000 × 41.2 / 400 = 16182 s and 17100 − 6000 × 40.8 / 400 = 16488 s.
