@@ -28,6 +28,11 @@ export function summarize(values: readonly number[]): TrialSummary {
     for (const x of values) mean += x / n;
   }
   finiteResult(mean, 'Mean');
+  // One correction pass (the mean of the residuals) removes the rounding of the first sum,
+  // so that e.g. three equal values give exactly that value.
+  let residual = 0;
+  for (const x of values) residual += (x - mean) / n;
+  if (Number.isFinite(residual)) mean += residual;
   if (n === 1) return { n, mean, sd: null };
   // Two-pass variance, scaled by the largest deviation so the squares cannot overflow.
   let scale = 0;
