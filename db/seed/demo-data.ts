@@ -185,9 +185,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 88), c('luminousFlux', 350), c('runtime', 3 * 3600), c('peakIntensity', 2800), c('luminousFlux', 30, 'low'), c('runtime', 40 * 3600, 'low'), c('ratedEnergy', 5.92, '', 'manual'), c('powerDraw', 2.1, 'high', 'manual')],
   }),
   gear({
-    slug: 'glowmere-wisp-180',
+    slug: 'glowmere-fernlight-180',
     owner: 'reviewer',
-    name: 'Wisp 180 headlamp',
+    name: 'Fernlight 180 headlamp',
     maker: 'Glowmere',
     category: 'light',
     kind: 'headlamp',
@@ -203,9 +203,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 62), c('luminousFlux', 180), c('runtime', 2.5 * 3600), c('peakIntensity', 1200), c('luminousFlux', 20, 'low'), c('runtime', 30 * 3600, 'low'), c('ratedEnergy', 4.44)],
   }),
   gear({
-    slug: 'glowmere-strider-600',
+    slug: 'glowmere-scree-600',
     owner: 'reviewer',
-    name: 'Strider 600 headlamp',
+    name: 'Scree 600 headlamp',
     maker: 'Glowmere',
     category: 'light',
     kind: 'headlamp',
@@ -269,7 +269,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     priceMinor: 4999,
     priceCurrency: 'USD',
     pricePaidOn: '2026-08-05',
-    notes: 'Rated 20 000 mAh at 3.6 V (72 Wh). One USB-C port (45 W), two USB-A. Recharges over USB-C in about 2.5 h from a 45 W charger (maker).',
+    notes: 'Rated 20 000 mAh at 3.6 V (72 Wh). One USB-C port (45 W), two USB-A. Recharges over USB-C in about 2.5 h from a 45 W charger (maker). Loaned by the maker; price is the retail price on the day.',
     status: 'approved',
     created: '2026-08-20T13:00',
     approved: '2026-08-24T10:00',
@@ -305,7 +305,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     priceMinor: 8999,
     priceCurrency: 'USD',
     pricePaidOn: '2026-08-05',
-    notes: 'Rated 27 000 mAh at 3.7 V (99.9 Wh), just under the 100 Wh airline line. Two USB-C ports, 65 W combined; can run a laptop.',
+    notes: 'Rated 27 000 mAh at 3.7 V (99.9 Wh), just under the 100 Wh airline line. Two USB-C ports, 65 W combined; can run a laptop. Loaned by the maker; price is the retail price on the day.',
     status: 'approved',
     created: '2026-08-20T13:40',
     approved: '2026-08-24T10:10',
@@ -386,9 +386,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
   }),
   // --- Solar panels ---------------------------------------------------------------------------
   gear({
-    slug: 'brackenfold-sunfold-60',
+    slug: 'brackenfold-heathray-60',
     owner: 'reviewer',
-    name: 'Sunfold 60 folding panel',
+    name: 'Heathray 60 folding panel',
     maker: 'Brackenfold',
     category: 'solar-panel',
     kind: null,
@@ -404,9 +404,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 1800), c('ratedPower', 60)],
   }),
   gear({
-    slug: 'brackenfold-sunfold-28',
+    slug: 'brackenfold-heathray-28',
     owner: 'reviewer',
-    name: 'Sunfold 28 USB panel',
+    name: 'Heathray 28 USB panel',
     maker: 'Brackenfold',
     category: 'solar-panel',
     kind: null,
@@ -422,9 +422,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 720), c('ratedPower', 28)],
   }),
   gear({
-    slug: 'brackenfold-sunfold-120',
+    slug: 'brackenfold-heathray-120',
     owner: 'reviewer',
-    name: 'Sunfold 120 folding panel',
+    name: 'Heathray 120 folding panel',
     maker: 'Brackenfold',
     category: 'solar-panel',
     kind: null,
@@ -450,7 +450,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     priceMinor: 8900,
     priceCurrency: 'USD',
     pricePaidOn: '2026-08-01',
-    notes: 'Dual-band handheld, 7.4 V 2000 mAh pack (14.8 Wh). Draw claimed as 70 mA on receive and 1.6 A on transmit at 7.4 V. Transmitting on amateur bands needs a licence.',
+    notes: 'Dual-band handheld, 7.4 V 2000 mAh pack (14.8 Wh). Draw claimed as 70 mA on receive and 1.6 A on transmit at 7.4 V. Transmitting on amateur bands needs a licence. Price is the list price on the day; our two units were given by the maker (see the review’s disclosure).',
     status: 'approved',
     created: '2026-08-22T08:00',
     approved: '2026-08-26T09:00',
@@ -476,9 +476,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 1150), c('transmitPower', 25), c('supplyVoltage', 13.8), c('powerDraw', 8.28, 'receive'), c('powerDraw', 82.8, 'transmit')],
   }),
   gear({
-    slug: 'voltmoth-skywatch-r1',
+    slug: 'voltmoth-stormlark-r1',
     owner: 'reviewer2',
-    name: 'Skywatch R1 crank weather receiver',
+    name: 'Stormlark R1 crank weather receiver',
     maker: 'Voltmoth',
     category: 'radio',
     kind: null,
@@ -567,9 +567,9 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     claims: [c('mass', 11200), c('supplyVoltage', 12), c('powerDraw', 45, 'running'), c('powerDraw', 28, 'eco')],
   }),
   gear({
-    slug: 'glowmere-breeze-tent-fan',
+    slug: 'glowmere-eddy-tent-fan',
     owner: 'reviewer',
-    name: 'Breeze tent fan with light',
+    name: 'Eddy tent fan with light',
     maker: 'Glowmere',
     category: 'other',
     kind: null,
@@ -642,7 +642,7 @@ const MASS_WEIGHINGS: Record<string, number[]> = {
   'northcairn-fellbeam-350': [93, 94, 94],
   'voltmoth-cellhive-20': [371],
   'northcairn-pocketcell-10': [199],
-  'brackenfold-sunfold-60': [1912],
+  'brackenfold-heathray-60': [1912],
   'dunlow-campcore-20-lifepo4': [2541],
   'dunlow-ridgecall-h5': [251],
 };
@@ -714,10 +714,10 @@ export const DEMO_FIELD_TESTS: readonly DemoFieldTest[] = [
       'Clear sky with no haze. Both panels on their kickstands facing the sun, tilt reset every 30 minutes, 11:00 to 13:00 clock time. Each panel charged a part-drained 12 V battery through the same MPPT charge controller (the 28 W panel through its USB-C port and a PD trigger), so the logged watts are what a real camp would harvest, not the panel’s maximum-power point under standard test conditions.',
     status: 'approved',
     approvedAt: at('2026-09-23T16:00'),
-    items: ['brackenfold-sunfold-60', 'brackenfold-sunfold-28'],
+    items: ['brackenfold-heathray-60', 'brackenfold-heathray-28'],
     trials: [
-      trial('demo-trial-sunfold60-clear', 'brackenfold-sunfold-60', 'Clear midday', at('2026-09-19T11:00'), solarLog({ ratedW: 60, durationS: 7200, sky: 'clear', share: 0.76, seed: 41 })),
-      trial('demo-trial-sunfold28-clear', 'brackenfold-sunfold-28', 'Clear midday', at('2026-09-19T11:00'), solarLog({ ratedW: 28, durationS: 7200, sky: 'clear', share: 0.81, seed: 42 })),
+      trial('demo-trial-heathray60-clear', 'brackenfold-heathray-60', 'Clear midday', at('2026-09-19T11:00'), solarLog({ ratedW: 60, durationS: 7200, sky: 'clear', share: 0.76, seed: 41 })),
+      trial('demo-trial-heathray28-clear', 'brackenfold-heathray-28', 'Clear midday', at('2026-09-19T11:00'), solarLog({ ratedW: 28, durationS: 7200, sky: 'clear', share: 0.81, seed: 42 })),
     ],
   },
   {
@@ -733,10 +733,10 @@ export const DEMO_FIELD_TESTS: readonly DemoFieldTest[] = [
       'Same set-up as the clear-day test three days earlier, under a low, even overcast with a few brighter spells. Same controller and battery, 11:00 to 13:00.',
     status: 'approved',
     approvedAt: at('2026-09-23T16:05'),
-    items: ['brackenfold-sunfold-60', 'brackenfold-sunfold-28'],
+    items: ['brackenfold-heathray-60', 'brackenfold-heathray-28'],
     trials: [
-      trial('demo-trial-sunfold60-overcast', 'brackenfold-sunfold-60', 'Overcast midday', at('2026-09-22T11:00'), solarLog({ ratedW: 60, durationS: 7200, sky: 'overcast', share: 0.17, seed: 43 })),
-      trial('demo-trial-sunfold28-overcast', 'brackenfold-sunfold-28', 'Overcast midday', at('2026-09-22T11:00'), solarLog({ ratedW: 28, durationS: 7200, sky: 'overcast', share: 0.19, seed: 44 })),
+      trial('demo-trial-heathray60-overcast', 'brackenfold-heathray-60', 'Overcast midday', at('2026-09-22T11:00'), solarLog({ ratedW: 60, durationS: 7200, sky: 'overcast', share: 0.17, seed: 43 })),
+      trial('demo-trial-heathray28-overcast', 'brackenfold-heathray-28', 'Overcast midday', at('2026-09-22T11:00'), solarLog({ ratedW: 28, durationS: 7200, sky: 'overcast', share: 0.19, seed: 44 })),
     ],
   },
   {
@@ -961,7 +961,7 @@ Two trials on the Lakeshore test bench, lantern on high in a closed, foil-lined 
 ${runtimeLine}
 - Output held within 3 % of its starting value for the first three hours, then faded over about 100 minutes rather than dropping off a cliff: you get a clear warning before dark.
 - Mass as carried: **428 g** against 410 g claimed (the claim leaves out the hook).
-- Recharging from the Sunfold 28 panel through a power bank worked; it takes most of a sunny day.
+- Recharging from the Heathray 28 panel through a power bank worked; it takes most of a sunny day.
 
 ## Verdict
 
@@ -1007,8 +1007,8 @@ How much does a folding panel really put into a battery at Upper Meadow camp in 
 
 | panel | rated | clear sky, mean | overcast, mean |
 | --- | --- | --- | --- |
-| Brackenfold Sunfold 60 | 60 W | ${solarMean('demo-ft-panels-clear', 'demo-trial-sunfold60-clear', 60)} | ${solarMean('demo-ft-panels-overcast', 'demo-trial-sunfold60-overcast', 60)} |
-| Brackenfold Sunfold 28 | 28 W | ${solarMean('demo-ft-panels-clear', 'demo-trial-sunfold28-clear', 28)} | ${solarMean('demo-ft-panels-overcast', 'demo-trial-sunfold28-overcast', 28)} |
+| Brackenfold Heathray 60 | 60 W | ${solarMean('demo-ft-panels-clear', 'demo-trial-heathray60-clear', 60)} | ${solarMean('demo-ft-panels-overcast', 'demo-trial-heathray60-overcast', 60)} |
+| Brackenfold Heathray 28 | 28 W | ${solarMean('demo-ft-panels-clear', 'demo-trial-heathray28-clear', 28)} | ${solarMean('demo-ft-panels-overcast', 'demo-trial-heathray28-overcast', 28)} |
 
 The linked field tests hold the minute-by-minute logs and the sky and temperature for each day.
 
@@ -1054,7 +1054,7 @@ The base-camp radio, the cool box and the group's phone charging run from one 12
 | Dunlow Outfitters Campcore 20 | LiFePO4 | 256 Wh | 2.5 kg | USD 189 |
 | Voltmoth Deepwell 50 | LiFePO4 | 640 Wh | 5.9 kg | USD 329 |
 
-The Campcore is enough for the radio and phones with the Sunfold 60 topping it up; the cool box needs the Deepwell. This review will get a new revision with measured figures once the discharge test is approved.
+The Campcore is enough for the radio and phones with the Heathray 60 topping it up; the cool box needs the Deepwell. This review will get a new revision with measured figures once the discharge test is approved.
 
 ## Safety
 
@@ -1138,7 +1138,7 @@ ${DEMO_NOTE}`;
           body: banksBody(`
 ## Recharging at camp (added after the course)
 
-The Sunfold 28 refilled the Pocketcell 10 from nearly empty in one clear afternoon; on the overcast day it managed about a third of it.
+The Heathray 28 refilled the Pocketcell 10 from nearly empty in one clear afternoon; on the overcast day it managed about a third of it.
 `),
           disclosure: 'loaned-by-maker',
           disclosureNote: 'Voltmoth loaned the two Cellhive banks for the course and has them back. The Pocketcell 10 was bought at retail. No maker saw this review before publication.',
@@ -1151,7 +1151,7 @@ The Sunfold 28 refilled the Pocketcell 10 from nearly empty in one clear afterno
       slug: 'folding-panels-clear-versus-overcast',
       author: 'reviewer',
       createdAt: at('2026-09-25T18:00'),
-      items: ['brackenfold-sunfold-60', 'brackenfold-sunfold-28'],
+      items: ['brackenfold-heathray-60', 'brackenfold-heathray-28'],
       revisions: [
         revision('demo-review-folding-panels', {
           number: 1,
@@ -1188,8 +1188,8 @@ The Sunfold 28 refilled the Pocketcell 10 from nearly empty in one clear afterno
           summary: '',
           verdict: '',
           body: fellbeamBody,
-          disclosure: 'given-by-maker',
-          disclosureNote: 'Northcairn sent this headlamp to the school free of charge and did not ask for it back.',
+          disclosure: 'bought-retail',
+          disclosureNote: 'Bought by the school at full price.',
           events: [ev(null, 'draft', 'reviewer2', '2026-10-15T07:45')],
         }),
       ],
@@ -1288,7 +1288,7 @@ export const DEMO_KITS: readonly DemoKit[] = [
     tripDays: 5,
     createdAt: at('2026-09-24T20:00'),
     entries: [
-      { id: 'demo-kit-base-camp-1', item: 'brackenfold-sunfold-60', quantity: 1 },
+      { id: 'demo-kit-base-camp-1', item: 'brackenfold-heathray-60', quantity: 1 },
       { id: 'demo-kit-base-camp-2', item: 'brackenfold-panel-extension-lead', quantity: 1 },
       { id: 'demo-kit-base-camp-3', item: 'dunlow-campcore-20-lifepo4', quantity: 1 },
       { id: 'demo-kit-base-camp-4', item: 'northcairn-valecaster-m25', quantity: 1 },

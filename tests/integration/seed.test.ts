@@ -93,7 +93,7 @@ describe('seedDemo on a fresh database', () => {
     }
     expect(ratioIds.get('demo-gear-glowmere-hearthglow-400')).toEqual(expect.arrayContaining(['lm-per-g', 'lm-per-money', 'measured-vs-claimed:runtime', 'measured-vs-claimed:mass']));
     expect(ratioIds.get('demo-gear-voltmoth-cellhive-20')).toEqual(expect.arrayContaining(['wh-per-kg', 'delivered-wh-per-money', 'delivered-vs-rated']));
-    expect(ratioIds.get('demo-gear-brackenfold-sunfold-60')).toEqual(expect.arrayContaining(['w-per-kg', 'w-per-money']));
+    expect(ratioIds.get('demo-gear-brackenfold-heathray-60')).toEqual(expect.arrayContaining(['w-per-kg', 'w-per-money']));
   });
 
   it('creates demo users of every role at the demo domain, marked as demo, with working passwords', async () => {
