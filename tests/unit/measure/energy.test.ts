@@ -40,6 +40,7 @@ describe('chargeToWh (49 CFR 171.8: watt-hour rating = Ah × nominal V)', () => 
   });
 });
 
+// IATA, "Passengers travelling with lithium batteries" (2018 passenger table).
 describe('airlineBand (IATA passenger lithium battery table)', () => {
   // IATA "Passengers travelling with lithium batteries": ≤ 100 Wh no approval; > 100 to ≤ 160 Wh with
   // operator approval; > 160 Wh cargo only. The boundaries 100 and 160 fall in the lower band.

@@ -5,7 +5,7 @@ import { expectClose, expectCode, finiteOrMeasureError } from './helpers';
 
 describe('beamDistanceM', () => {
   // ANSI/PLATO FL 1 (beam distance: where illuminance falls to 0.25 lx) with the inverse-square
-  // law E = I/d² (IES inverse-square law): d = √(I/0.25) = 2√I. Check values exact by hand.
+  // law E = I/d² (IES lighting definitions, "Inverse-square law" [9.1.1]): d = √(I/0.25) = 2√I. Check values exact by hand.
   it.each([
     [2500, 100],
     [10000, 200],
@@ -29,13 +29,13 @@ describe('beamDistanceM', () => {
 });
 
 describe('candelaFromLux', () => {
-  // IES inverse-square law: I = E × d². 125 lx at 5 m → 3125 cd → beam distance 2√3125 = 111.80 m.
+  // IES lighting definitions, "Inverse-square law" [9.1.1]: I = E × d². 125 lx at 5 m → 3125 cd → beam distance 2√3125 = 111.80 m.
   it('125 lx at 5 m', () => {
     expect(candelaFromLux(125, 5)).toBe(3125);
     expect(beamDistanceM(candelaFromLux(125, 5))).toBeCloseTo(111.803398875, 8);
   });
 
-  // IES inverse-square law: 2000 lx at 2 m is 8000 cd (a secondary page's "4000 cd" is an arithmetic slip),
+  // IES lighting definitions [9.1.1] (inverse-square law): 2000 lx at 2 m is 8000 cd (a secondary page's "4000 cd" is an arithmetic slip),
   // and ANSI/PLATO FL 1 beam distance 2√8000 = 178.885 m.
   it('2000 lx at 2 m is 8000 cd, not 4000', () => {
     expect(candelaFromLux(2000, 2)).toBe(8000);
@@ -50,6 +50,7 @@ describe('candelaFromLux', () => {
   });
 });
 
+// ANSI/PLATO FL 1 runtime definition as published summaries give it (the standard text itself was not read).
 describe('lightRuntime (ANSI/PLATO FL 1: to 10 % of the output at 30 s)', () => {
   // Closed form, exact by hand: 300 lm flat for 1 h, then linear to 0 at 11 h. The reference is
   // 300 lm; 10 % is 30 lm, reached when 300·(1 − (t − 3600)/36000) = 30 → t = 36 000 s.
