@@ -27,6 +27,10 @@ export default defineConfig({
       ],
     },
   },
+  projects: [
+    { name: 'sign-in', testMatch: /auth\.setup\.ts/ },
+    { name: 'app', dependencies: ['sign-in'], testIgnore: /auth\.setup\.ts/ },
+  ],
   webServer: {
     command: `node scripts/e2e-server.mjs`,
     url: `${baseURL}/api/health`,

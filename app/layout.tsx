@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import type { ReactNode } from 'react';
-import { publicSans, plexMono } from './fonts';
+import { SiteFooter } from '@/components/site-footer';
+import { SiteHeader } from '@/components/site-header';
+import { plexMono, publicSans } from './fonts';
 import './globals.css';
 
 export const metadata: Metadata = {
@@ -12,7 +14,13 @@ export const metadata: Metadata = {
 export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={`${publicSans.variable} ${plexMono.variable}`}>
-      <body className="min-h-screen bg-paper text-ink antialiased">{children}</body>
+      <body className="flex min-h-screen flex-col bg-paper text-ink antialiased">
+        <SiteHeader />
+        <div id="main" className="flex-1">
+          {children}
+        </div>
+        <SiteFooter />
+      </body>
     </html>
   );
 }

@@ -8,4 +8,5 @@ test('home page shows the product and health answers', async ({ page, request })
   const response = await page.goto('/');
   expect(response?.status()).toBe(200);
   await expect(page.getByRole('heading', { level: 1 })).toContainText('compared by value');
+  await expect(page.getByRole('navigation', { name: 'Main' })).toBeVisible();
 });
