@@ -1,5 +1,7 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
+  // Parallel local builds (several engineers in one checkout) each use their own output folder.
+  distDir: process.env.NEXT_DIST_DIR ?? '.next',
   poweredByHeader: false,
   reactStrictMode: true,
   serverExternalPackages: ['better-sqlite3', '@node-rs/argon2', 'sharp', 'smtp-server', 'nodemailer'],
