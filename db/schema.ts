@@ -97,6 +97,15 @@ export const gearItems = sqliteTable(
     priceCurrency: text('price_currency'),
     pricePaidOn: text('price_paid_on'),
     notes: text('notes').notNull().default(''),
+    /** Cell chemistry (lib/measure CHEMISTRIES) for items that store energy; decides whether airline bands apply. */
+    chemistry: text('chemistry'),
+    /** IEC 60529 IP code such as IPX4 or IP67. */
+    waterRating: text('water_rating'),
+    /**
+     * State of the item's latest version. `approvedAt` set means an approved version is public: the
+     * columns here and the `specs` rows are then the approved figures, and an author's later edits wait
+     * in `gear_pending_changes` until approved (see db/gear.ts).
+     */
     status: text('status', { enum: RECORD_STATES }).notNull().default('draft'),
     approvedAt: integer('approved_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
@@ -346,6 +355,113 @@ export const capturedEmails = sqliteTable('captured_emails', {
   htmlBody: text('html_body'),
   createdAt: createdAt(),
 });
+
+/**
+ * An approved item's edits waiting for approval: the whole editable state (fields and claimed specs,
+ * canonical units) as JSON. One row per item at most; applied to gear_items/specs in the approval
+ * transaction and then deleted. The item's `status` says where the change is (draft, in review …).
+ */
+export const gearPendingChanges = sqliteTable('gear_pending_changes', {
+  gearItemId: text('gear_item_id')
+    .primaryKey()
+    .references(() => gearItems.id, { onDelete: 'cascade' }),
+  data: text('data', { mode: 'json' }).notNull().$type<GearPendingData>(),
+  authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`(unixepoch('subsec') * 1000)`),
+});
+
+export interface GearPendingData {
+  name: string;
+  maker: string;
+  kind: string | null;
+  modelYear: number | null;
+  priceMinor: number | null;
+  priceCurrency: string | null;
+  pricePaidOn: string | null;
+  notes: string;
+  chemistry: string | null;
+  waterRating: string | null;
+  changeNote: string;
+  claims: { key: string; mode: string; value: number; source: string }[];
+}
+
+/** Every change to a spec: who, when, old → new. `context`: a draft edit, an edit pending approval, or applied by approval. */
+export const specChanges = sqliteTable(
+  'spec_changes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    key: text('key').notNull(),
+    mode: text('mode').notNull().default(''),
+    basis: text('basis', { enum: ['claimed', 'measured'] }).notNull(),
+    oldValue: real('old_value'),
+    newValue: real('new_value'),
+    oldSource: text('old_source'),
+    newSource: text('new_source'),
+    context: text('context', { enum: ['edit', 'pending', 'approval'] }).notNull(),
+    changedById: text('changed_by_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('spec_changes_item').on(t.gearItemId, t.createdAt)],
+);
+
+/** Value ratios of approved figures (lib/measure valueRatios), recomputed in the approval transaction; browse sorts on these. */
+export const gearRatios = sqliteTable(
+  'gear_ratios',
+  {
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    ratioId: text('ratio_id').notNull(),
+    value: real('value').notNull(),
+    unit: text('unit').notNull(),
+    basis: text('basis', { enum: ['measured', 'claimed', 'mixed'] }).notNull(),
+    /** ISO 4217 code for per-money ratios, else null. */
+    currency: text('currency'),
+    higherIsBetter: integer('higher_is_better', { mode: 'boolean' }),
+    computedAt: integer('computed_at', { mode: 'timestamp_ms' }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.gearItemId, t.ratioId] }), index('gear_ratios_ratio_value').on(t.ratioId, t.value)],
+);
+
+/** Review state changes of gear items, with the editor's comment when sent back. */
+export const gearStateEvents = sqliteTable(
+  'gear_state_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    fromState: text('from_state', { enum: RECORD_STATES }),
+    toState: text('to_state', { enum: RECORD_STATES }).notNull(),
+    actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    comment: text('comment').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('gear_state_events_item').on(t.gearItemId, t.createdAt)],
+);
+
+/** Dated "figures updated" notes: one per approval that changed an already public item's figures. */
+export const gearFigureNotes = sqliteTable(
+  'gear_figure_notes',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    note: text('note').notNull().default(''),
+    /** Generated list of what changed, e.g. "Mass (claimed): 410 g → 400 g". */
+    summary: text('summary').notNull(),
+    approvedById: text('approved_by_id').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+  },
+  (t) => [index('gear_figure_notes_item').on(t.gearItemId, t.createdAt)],
+);
 
 export type User = typeof users.$inferSelect;
 export type GearItem = typeof gearItems.$inferSelect;
