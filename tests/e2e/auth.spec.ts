@@ -158,3 +158,30 @@ test('an admin promotes a new user to reviewer; the old session ends and the new
   expect(logbook?.status()).toBe(200);
   await newcomer.context.close();
 });
+
+test('disabling an account ends its session and refuses sign-in', async ({ browser }) => {
+  const member = await signUpNewReader(browser, 'disabled');
+  const admin = await browser.newContext({ storageState: storageStateFor('admin') });
+  const adminPage = await admin.newPage();
+  await adminPage.goto('/admin/users');
+  const row = adminPage.locator(`tr[data-email="${member.email}"]`);
+  await row.getByRole('button', { name: 'Disable' }).click();
+  await expect(row.getByRole('status')).toHaveText('Saved.');
+  await admin.close();
+
+  await member.page.goto('/');
+  await expect(member.page.getByTestId('signed-in-as')).toHaveCount(0);
+  await signInWithPassword(member.page, member.email, member.password);
+  await expect(member.page.getByTestId('form-message')).toContainText('do not match an account that can sign in');
+  await member.context.close();
+});
+
+test('pages carry the security headers', async ({ request }) => {
+  const response = await request.get('/');
+  const headers = response.headers();
+  expect(headers['content-security-policy']).toContain("object-src 'none'");
+  expect(headers['content-security-policy']).toContain("frame-ancestors 'none'");
+  expect(headers['x-content-type-options']).toBe('nosniff');
+  expect(headers['referrer-policy']).toBeTruthy();
+  expect(headers['x-powered-by']).toBeUndefined();
+});
