@@ -19,3 +19,15 @@ test.describe('admin', () => {
     await page.screenshot({ path: 'test-results/screens/admin-users.png', fullPage: true });
   });
 });
+
+test.describe('on a phone', () => {
+  test.use({ viewport: { width: 390, height: 844 } });
+  test('home and safety cautions', async ({ page }) => {
+    await page.goto('/');
+    await expect(page.getByRole('navigation', { name: 'Main' })).toBeVisible();
+    await page.screenshot({ path: 'test-results/screens/home-phone.png', fullPage: true });
+    await page.goto('/safety');
+    await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+    await page.screenshot({ path: 'test-results/screens/safety-phone.png', fullPage: true });
+  });
+});
