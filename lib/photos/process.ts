@@ -136,3 +136,16 @@ export async function processAndStorePhoto(buffer: Buffer, options: { uploadsDir
   const bytes = [...variants.values()].reduce((sum, b) => sum + b.length, 0);
   return { storageKey, width, height, bytes };
 }
+
+/**
+ * Renders an SVG that the application itself wrote (the demo seed's drawings) to PNG. The SVG loader is
+ * unblocked only for this call; uploads never reach sharp as SVG, because the byte check refuses them first.
+ */
+export async function renderTrustedSvg(svg: string): Promise<Buffer> {
+  sharp.unblock({ operation: ['VipsForeignLoadSvgBuffer'] });
+  try {
+    return await sharp(Buffer.from(svg), { limitInputPixels: MAX_INPUT_PIXELS }).png().toBuffer();
+  } finally {
+    sharp.block({ operation: ['VipsForeignLoadSvgBuffer'] });
+  }
+}
