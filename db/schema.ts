@@ -317,6 +317,17 @@ export const kits = sqliteTable(
     purpose: text('purpose').notNull().default(''),
     tripDays: integer('trip_days').notNull().default(1),
     shareToken: text('share_token'),
+    /* Power budget: charging and conversion (null = the lib/measure default). */
+    /** Clear-sky peak sun hours for the trip's place and season, h/day (0–24); needed when the kit has panels. */
+    peakSunHours: real('peak_sun_hours'),
+    /** Expected sky for the trip (a field-test sky value) that the sky share was chosen for. */
+    sky: text('sky', { enum: ['clear', 'thin-cloud', 'broken-cloud', 'overcast', 'rain'] }),
+    /** Output under the expected sky ÷ the same panel's clear-sky output, 0–1. */
+    skyShare: real('sky_share'),
+    /** PV system losses as a fraction, 0 ≤ l < 1. */
+    lossFraction: real('loss_fraction'),
+    /** Efficiency from storage to the loads (converters, chargers, cables), (0, 1]. */
+    conversionEfficiency: real('conversion_efficiency'),
     createdAt: createdAt(),
     updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
       .notNull()
@@ -340,6 +351,17 @@ export const kitEntries = sqliteTable(
     freePriceMinor: integer('free_price_minor'),
     freePriceCurrency: text('free_price_currency'),
     freeDrawW: real('free_draw_w'),
+    /* Power budget settings of the entry (null = default). */
+    /** Load: the powerDraw mode used (a spec mode of the item, e.g. 'high', 'transmit'). */
+    loadMode: text('load_mode'),
+    /** Load: hours a day the device is on, 0–24. */
+    hoursPerDay: real('hours_per_day'),
+    /** Load: share of the on-time spent drawing the chosen mode's power, (0, 1]. */
+    dutyCycle: real('duty_cycle'),
+    /** Storage: cell chemistry (lib/measure CHEMISTRIES) when the item does not state one, or to correct it. */
+    chemistry: text('chemistry'),
+    /** Storage: allowed depth of discharge, (0, 1]; null = the chemistry's default. */
+    depthOfDischarge: real('depth_of_discharge'),
     position: integer('position').notNull().default(0),
   },
   (t) => [index('kit_entries_kit').on(t.kitId)],
