@@ -26,7 +26,7 @@ const depth = finite('Depth of discharge')
 
 export const priceSchema = z.strictObject({
   amountMinor: z.number({ error: 'Price must be a number.' }).int('Price is in whole minor units (cents).').min(0, 'Price cannot be negative.').max(1e11, 'Price is too large.'),
-  currency: z.string().refine(isCurrencyCode, 'Use a three-letter ISO 4217 currency code such as USD or EUR.'),
+  currency: z.string().refine((code): boolean => isCurrencyCode(code), 'Use a three-letter ISO 4217 currency code such as USD or EUR.'),
 });
 
 export const kitEntrySchema = z
