@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { blob, index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 
 /*
  * Measured physical quantities are REAL in the canonical units of lib/measure (g, Wh, W, lm, cd, lx, m, s, °C,
@@ -138,8 +138,10 @@ export const fieldTests = sqliteTable(
     status: text('status', { enum: RECORD_STATES }).notNull().default('draft'),
     approvedAt: integer('approved_at', { mode: 'timestamp_ms' }),
     createdAt: createdAt(),
+    /** Last change to the record or its trials (null: never changed since created). */
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' }),
   },
-  (t) => [index('field_tests_owner').on(t.ownerId)],
+  (t) => [index('field_tests_owner').on(t.ownerId), index('field_tests_status').on(t.status, t.kind)],
 );
 
 export const fieldTestItems = sqliteTable(
@@ -170,12 +172,58 @@ export const trials = sqliteTable(
     switchedOnAt: integer('switched_on_at', { mode: 'timestamp_ms' }),
     /** Typed values such as a scale reading: { specKey: value } in canonical units. */
     typedValues: text('typed_values', { mode: 'json' }).$type<Record<string, number>>(),
+    /** Order of the trial within its test. */
+    position: integer('position').notNull().default(0),
+    /**
+     * The readings series, every row, encoded compactly and exactly by lib/readings `encodeSeries`
+     * (format in `seriesFormat`, "TBS1"); t in seconds since switch-on. Null when the trial has typed values only.
+     */
+    series: blob('series', { mode: 'buffer' }),
+    seriesFormat: text('series_format'),
+    /** Number of samples in `series`. */
+    seriesLength: integer('series_length'),
+    /** Where the series came from and what the parser did (file name, time unit, rows read and left out …). */
+    seriesMeta: text('series_meta', { mode: 'json' }).$type<TrialSeriesMeta>(),
+    /** Plain sentences shown beside the chart, e.g. "12 rows before switch-on dropped". */
+    seriesNotes: text('series_notes', { mode: 'json' }).$type<string[]>().notNull().default(sql`'[]'`),
     createdAt: createdAt(),
   },
   (t) => [index('trials_field_test').on(t.fieldTestId)],
 );
 
-/** One row per sample of a trial's readings series; t in seconds since switch-on. */
+export interface TrialSeriesMeta {
+  source: 'csv' | 'typed';
+  fileName?: string;
+  fileBytes?: number;
+  timeUnit: string;
+  fields: string[];
+  dataRows: number;
+  droppedBeforeSwitchOn: number;
+  droppedRows: number;
+  durationS: number;
+}
+
+/** Review state changes of field tests (lib/workflow `record` kind), with the editor's comment when sent back. */
+export const fieldTestStateEvents = sqliteTable(
+  'field_test_state_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    fieldTestId: text('field_test_id')
+      .notNull()
+      .references(() => fieldTests.id, { onDelete: 'cascade' }),
+    fromState: text('from_state', { enum: RECORD_STATES }),
+    toState: text('to_state', { enum: RECORD_STATES }).notNull(),
+    actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    comment: text('comment').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('field_test_state_events_test').on(t.fieldTestId, t.createdAt)],
+);
+
+/**
+ * Legacy: one row per sample of a trial's readings series; t in seconds since switch-on. Field tests now
+ * store the series on `trials.series`; kept while db/kits.ts still reads it (db/field-tests.ts `trialSamples` reads both).
+ */
 export const readings = sqliteTable(
   'readings',
   {
@@ -487,3 +535,5 @@ export const gearFigureNotes = sqliteTable(
 
 export type User = typeof users.$inferSelect;
 export type GearItem = typeof gearItems.$inferSelect;
+export type FieldTest = typeof fieldTests.$inferSelect;
+export type Trial = typeof trials.$inferSelect;
