@@ -1,7 +1,7 @@
 import 'server-only';
 import { getDb } from '@/db';
-import { listPhotos, type Photo } from '@/db/photos';
-import { PLACEHOLDER_WIDTH, uploadsDir, VARIANT_WIDTHS, variantUrl } from '@/lib/photos/config';
+import { listPhotos } from '@/db/photos';
+import { photoSrcSet, PLACEHOLDER_WIDTH, uploadsDir, variantUrl } from '@/lib/photos/config';
 import { readVariant } from '@/lib/photos/storage';
 import { PhotoActions } from './photo-actions';
 
@@ -18,19 +18,6 @@ export interface PhotoGalleryProps {
   itemName: string;
   /** Show alt-text editing and delete buttons (pass true for the owner or an editor). */
   manage?: boolean;
-}
-
-/** Variant widths that really differ for this photo (a narrow original is not upscaled). */
-export function photoSrcSet(photo: Pick<Photo, 'storageKey' | 'width'>): string {
-  const seen = new Set<number>();
-  const parts: string[] = [];
-  for (const width of VARIANT_WIDTHS) {
-    const real = Math.min(width, photo.width);
-    if (seen.has(real)) continue;
-    seen.add(real);
-    parts.push(`${variantUrl(photo.storageKey, width)} ${real}w`);
-  }
-  return parts.join(', ');
 }
 
 async function placeholderDataUrl(storageKey: string): Promise<string | null> {

@@ -20,7 +20,7 @@ export const STORED_WIDTHS: readonly number[] = [PLACEHOLDER_WIDTH, ...VARIANT_W
 export const STORAGE_KEY_RE = /^[0-9a-f]{32}$/;
 
 export function uploadsDir(): string {
-  return path.resolve(process.env.UPLOADS_DIR ?? './uploads');
+  return path.resolve(/* turbopackIgnore: true */ process.env.UPLOADS_DIR ?? './uploads');
 }
 
 export function variantFileName(storageKey: string, width: number): string {
@@ -40,4 +40,17 @@ export function parseVariantFileName(name: string): { storageKey: string; width:
   const width = Number(widthText);
   if (!STORED_WIDTHS.includes(width)) return null;
   return { storageKey, width };
+}
+
+/** srcset of a photo's variants, each with its real width (a narrow original is not upscaled, so duplicates are dropped). */
+export function photoSrcSet(photo: { storageKey: string; width: number }): string {
+  const seen = new Set<number>();
+  const parts: string[] = [];
+  for (const width of VARIANT_WIDTHS) {
+    const real = Math.min(width, photo.width);
+    if (seen.has(real)) continue;
+    seen.add(real);
+    parts.push(`${variantUrl(photo.storageKey, width)} ${real}w`);
+  }
+  return parts.join(', ');
 }

@@ -7,6 +7,7 @@ import {
   deletePhoto,
   findItemForViewer,
   insertPhoto,
+  listPhotos,
   removeFilesIfUnused,
   updatePhotoAlt,
   type Photo,
@@ -14,7 +15,7 @@ import {
 } from '@/db/photos';
 import { apiHandler, assertSameOrigin, parseWith, readJson } from '@/lib/http/api';
 import { AppError } from '@/lib/http/errors';
-import { MAX_BODY_BYTES, MAX_FILE_BYTES, uploadsDir, VARIANT_WIDTHS, variantUrl } from './config';
+import { MAX_BODY_BYTES, MAX_FILE_BYTES, photoSrcSet, uploadsDir, variantUrl } from './config';
 import { processAndStorePhoto } from './process';
 import { photoAltUpdateSchema, uploadAltSchema } from './schemas';
 
@@ -40,7 +41,7 @@ export function photoJson(photo: Photo): PhotoJson {
   return {
     id: photo.id,
     url: variantUrl(photo.storageKey, 960),
-    srcSet: VARIANT_WIDTHS.map((w) => `${variantUrl(photo.storageKey, w)} ${Math.min(w, photo.width)}w`).join(', '),
+    srcSet: photoSrcSet(photo),
     width: photo.width,
     height: photo.height,
     altText: photo.altText,
@@ -99,6 +100,13 @@ async function readUploadForm(request: Request): Promise<{ file: File; alt: stri
   const alt = parseWith(uploadAltSchema, typeof altRaw === 'string' ? altRaw : '');
   return { file, alt };
 }
+
+/** GET /api/v1/gear/{slug}/photos — the item's photos in order (404 when the viewer may not see the item). */
+export const handlePhotoList = apiHandler(async (db: Db, viewer: PhotoActor | null, slug: string) => {
+  const item = findItemForViewer(db, slug, viewer);
+  const list = listPhotos(db, item.id).map(photoJson);
+  return NextResponse.json({ photos: list }, { headers: { 'Cache-Control': item.status === 'approved' ? 'no-cache' : 'private, no-store' } });
+});
 
 /** POST /api/v1/gear/{slug}/photos — multipart field `file` (and optional `alt`); 201 with the stored photo. */
 export const handlePhotoUpload = apiHandler(async (db: Db, user: PhotoActor | null, slug: string, request: Request, options: { uploadsDir?: string } = {}) => {

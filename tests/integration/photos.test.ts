@@ -10,8 +10,8 @@ import { createTestDb } from '@/db/test-db';
 import { gearItems, photos, users, type RecordState, type Role } from '@/db/schema';
 import { countPhotos, deleteItemPhotos, listPhotos, type PhotoActor } from '@/db/photos';
 import { AppError } from '@/lib/http/errors';
-import { MAX_FILE_BYTES, MAX_PHOTOS_PER_ITEM, VARIANT_WIDTHS, variantFileName } from '@/lib/photos/config';
-import { handlePhotoAltUpdate, handlePhotoDelete, handlePhotoUpload } from '@/lib/photos/handlers';
+import { MAX_FILE_BYTES, MAX_PHOTOS_PER_ITEM, photoSrcSet, VARIANT_WIDTHS, variantFileName } from '@/lib/photos/config';
+import { handlePhotoAltUpdate, handlePhotoDelete, handlePhotoList, handlePhotoUpload } from '@/lib/photos/handlers';
 import { inspectImage, processAndStorePhoto } from '@/lib/photos/process';
 import { handleVariantRequest } from '@/lib/photos/serve';
 
@@ -131,6 +131,12 @@ describe('processing', () => {
     expect(storedFiles()).toHaveLength(4); // the original is not kept
   });
 
+  it('srcset lists real widths only', () => {
+    const key = 'a'.repeat(32);
+    expect(photoSrcSet({ storageKey: key, width: 300 })).toBe(`/uploads/${key}-480.webp 300w`);
+    expect(photoSrcSet({ storageKey: key, width: 1000 })).toBe(`/uploads/${key}-480.webp 480w, /uploads/${key}-960.webp 960w, /uploads/${key}-1600.webp 1000w`);
+  });
+
   it('rejects a PNG whose header claims 65535×65535 before decoding (pixel cap)', async () => {
     // A real 1×1 PNG with its IHDR width/height rewritten and the CRC fixed: a ~4.3 GP claim in a tiny file.
     const png = await sharp({ create: { width: 1, height: 1, channels: 3, background: '#000' } }).png().toBuffer();
@@ -243,6 +249,12 @@ describe('upload route core', () => {
     expect(mine.status).toBe(200);
     expect(mine.headers.get('cache-control')).toBe('private, no-store');
     expect((await as(editor)).status).toBe(200);
+
+    expect((await handlePhotoList(db, null, 'draft-panel')).status).toBe(404);
+    const listed = (await (await handlePhotoList(db, owner, 'draft-panel')).json()) as { photos: { id: string; srcSet: string }[] };
+    expect(listed.photos.map((p) => p.id)).toEqual([photo!.id]);
+    // 1200 px original: all three variants are real widths.
+    expect(listed.photos[0]?.srcSet).toContain('-1600.webp 1200w');
   });
 
   it('serving refuses anything but a strict variant name', async () => {
