@@ -580,6 +580,8 @@ export interface GearView {
   showing: 'approved' | 'latest';
   /** True when an approved item has a change waiting (shown to author and editors). */
   hasPendingChange: boolean;
+  /** The viewer is the author, an editor or an admin (sees state, history and pending changes). */
+  insider: boolean;
   lines: SpecLine[];
   ratios: ValueRatio[];
   airline: { wh: number; band: AirlineBand } | null;
@@ -649,6 +651,7 @@ export function getGearView(db: Db, slug: string, viewer: Actor | null): GearVie
     version,
     showing: showLatest && (pending !== null || !isPublicGear(item)) ? 'latest' : 'approved',
     hasPendingChange: insider && pending !== null,
+    insider,
     lines: sorted,
     ratios,
     airline,

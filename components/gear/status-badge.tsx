@@ -1,0 +1,27 @@
+import clsx from 'clsx';
+import type { RecordState } from '@/db/schema';
+
+export const STATE_LABELS: Record<RecordState, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  'changes-requested': 'Changes requested',
+  approved: 'Approved',
+};
+
+export function StatusBadge({ status, className }: { status: RecordState; className?: string }) {
+  return (
+    <span
+      data-testid="gear-status"
+      className={clsx(
+        'inline-flex items-center rounded border px-1.5 py-0.5 font-mono text-[11px] uppercase tracking-wide',
+        status === 'approved' && 'border-lichen text-lichen',
+        status === 'in-review' && 'border-amber text-amber',
+        status === 'changes-requested' && 'border-danger text-danger',
+        status === 'draft' && 'border-rule text-slate',
+        className,
+      )}
+    >
+      {STATE_LABELS[status]}
+    </span>
+  );
+}

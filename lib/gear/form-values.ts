@@ -1,0 +1,116 @@
+/**
+ * The gear form's values (everything as typed text) and their conversion to and from the shared
+ * schema's input. Pure: used by the client form and by server pages that prefill it.
+ */
+import { SPECS, type Category, type SpecKey } from '@/lib/measure';
+import { CATEGORY_DEFS, claimableSpecs, MODE_SPEC_KEYS } from './categories';
+import { formatForInput } from './format';
+
+/** Form values: everything as typed text; cleaned per category before validation (see `clean`). */
+export type GearFormValues = {
+  category: string;
+  name: string;
+  maker: string;
+  kind: string;
+  modelYear: string;
+  price: { amount: string; currency: string };
+  pricePaidOn: string;
+  notes: string;
+  chemistry: string;
+  waterRating: string;
+  claimSource: string;
+  specs: Record<string, { value: string; source: string }>;
+  modes: { name: string; luminousFlux: string; runtime: string; powerDraw: string }[];
+  changeNote: string;
+};
+
+
+/** Keeps only what the chosen category records, so switching category leaves no stray fields. */
+export function clean(values: GearFormValues, withCategory: boolean): Record<string, unknown> {
+  const category = values.category as Category;
+  const def = CATEGORY_DEFS[category];
+  const specs: Record<string, { value: string; source?: string }> = {};
+  if (def) {
+    for (const s of claimableSpecs(category)) {
+      const entry = values.specs?.[s.key];
+      if (entry && entry.value.trim() !== '') specs[s.key] = entry.source ? { value: entry.value, source: entry.source } : { value: entry.value };
+    }
+  }
+  const modeKeys: readonly string[] = def?.modes ? MODE_SPEC_KEYS[def.modes] : [];
+  const modes = def?.modes
+    ? values.modes
+        .filter((m) => m.name.trim() !== '' || modeKeys.some((k) => m[k as 'powerDraw'].trim() !== ''))
+        .map((m) => Object.fromEntries([['name', m.name], ...modeKeys.map((k) => [k, m[k as 'powerDraw']])]))
+    : [];
+  const out: Record<string, unknown> = {
+    name: values.name,
+    maker: values.maker,
+    kind: def?.kinds.length ? values.kind : '',
+    modelYear: values.modelYear,
+    price: { amount: values.price.amount, currency: values.price.currency },
+    pricePaidOn: values.pricePaidOn,
+    notes: values.notes,
+    chemistry: def?.chemistry.shown ? values.chemistry : '',
+    waterRating: def?.waterRating ? values.waterRating : '',
+    claimSource: values.claimSource,
+    specs,
+    modes,
+    changeNote: values.changeNote,
+  };
+  if (withCategory) out.category = values.category;
+  return out;
+}
+
+export function emptyGearValues(category: Category = 'light'): GearFormValues {
+  return {
+    category,
+    name: '',
+    maker: '',
+    kind: '',
+    modelYear: '',
+    price: { amount: '', currency: 'USD' },
+    pricePaidOn: '',
+    notes: '',
+    chemistry: CATEGORY_DEFS[category].chemistry.default ?? '',
+    waterRating: '',
+    claimSource: 'packaging',
+    specs: {},
+    modes: [],
+    changeNote: '',
+  };
+}
+
+
+/** Prefills the form from the service's working copy input (numbers in canonical units). */
+export function toFormValues(input: Record<string, unknown>, category: Category): GearFormValues {
+  const base = emptyGearValues(category);
+  const text = (v: unknown) => (v === null || v === undefined ? '' : String(v));
+  const specsIn = (input.specs ?? {}) as Record<string, { value: number; source?: string }>;
+  const specs: GearFormValues['specs'] = {};
+  for (const [key, entry] of Object.entries(specsIn)) {
+    specs[key] = { value: formatForInput(entry.value, SPECS[key as SpecKey].quantity), source: entry.source === input.claimSource ? '' : (entry.source ?? '') };
+  }
+  const modesIn = (input.modes ?? []) as Record<string, unknown>[];
+  const modes = modesIn.map((m) => ({
+    name: text(m.name),
+    luminousFlux: typeof m.luminousFlux === 'number' ? formatForInput(m.luminousFlux, 'luminousFlux') : '',
+    runtime: typeof m.runtime === 'number' ? formatForInput(m.runtime, 'duration') : '',
+    powerDraw: typeof m.powerDraw === 'number' ? formatForInput(m.powerDraw, 'power') : '',
+  }));
+  const price = input.price as { amount: string; currency: string } | null;
+  return {
+    ...base,
+    name: text(input.name),
+    maker: text(input.maker),
+    kind: text(input.kind),
+    modelYear: text(input.modelYear),
+    price: price ? { amount: price.amount, currency: price.currency } : base.price,
+    pricePaidOn: text(input.pricePaidOn),
+    notes: text(input.notes),
+    chemistry: text(input.chemistry),
+    waterRating: text(input.waterRating),
+    claimSource: text(input.claimSource) || 'packaging',
+    specs,
+    modes,
+  };
+}
