@@ -1,0 +1,14 @@
+import { getDb } from '@/db';
+import { getCurrentUser } from '@/lib/auth/guard';
+import { apiHandler } from '@/lib/http/api';
+import { handleGetFieldTest, handleUpdateFieldTest } from '../handlers';
+
+export const dynamic = 'force-dynamic';
+
+type Context = { params: Promise<{ id: string }> };
+
+/** The record, its trials and results (404 unless the viewer may see it). */
+export const GET = apiHandler(async (_request: Request, context: Context) => handleGetFieldTest(getDb(), await getCurrentUser(), (await context.params).id));
+
+/** Update the author's draft: JSON body of `fieldTestInputSchema`. */
+export const PATCH = apiHandler(async (request: Request, context: Context) => handleUpdateFieldTest(getDb(), await getCurrentUser(), (await context.params).id, request));

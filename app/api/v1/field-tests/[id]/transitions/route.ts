@@ -1,0 +1,11 @@
+import { getDb } from '@/db';
+import { getCurrentUser } from '@/lib/auth/guard';
+import { apiHandler } from '@/lib/http/api';
+import { handleTransition } from '../../handlers';
+
+export const dynamic = 'force-dynamic';
+
+/** Submit, withdraw, request changes or approve: JSON `{ action, comment? }` (lib/workflow decides). */
+export const POST = apiHandler(async (request: Request, context: { params: Promise<{ id: string }> }) =>
+  handleTransition(getDb(), await getCurrentUser(), (await context.params).id, request),
+);

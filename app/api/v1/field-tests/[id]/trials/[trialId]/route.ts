@@ -1,0 +1,12 @@
+import { getDb } from '@/db';
+import { getCurrentUser } from '@/lib/auth/guard';
+import { apiHandler } from '@/lib/http/api';
+import { handleTrialDelete } from '../../../handlers';
+
+export const dynamic = 'force-dynamic';
+
+/** Delete a trial of the author's draft. */
+export const DELETE = apiHandler(async (request: Request, context: { params: Promise<{ id: string; trialId: string }> }) => {
+  const { id, trialId } = await context.params;
+  return handleTrialDelete(getDb(), await getCurrentUser(), id, trialId, request);
+});

@@ -1,0 +1,11 @@
+import { getDb } from '@/db';
+import { getCurrentUser } from '@/lib/auth/guard';
+import { apiHandler } from '@/lib/http/api';
+import { handleTypedTrial } from '../../handlers';
+
+export const dynamic = 'force-dynamic';
+
+/** Add a trial of typed values (JSON body of `typedTrialSchema`), e.g. a scale reading. */
+export const POST = apiHandler(async (request: Request, context: { params: Promise<{ id: string }> }) =>
+  handleTypedTrial(getDb(), await getCurrentUser(), (await context.params).id, request),
+);
