@@ -537,3 +537,21 @@ export type User = typeof users.$inferSelect;
 export type GearItem = typeof gearItems.$inferSelect;
 export type FieldTest = typeof fieldTests.$inferSelect;
 export type Trial = typeof trials.$inferSelect;
+
+/**
+ * Per-user switches for review workflow mail (issue 6, "Notifications"). No row means every switch is
+ * on. Editors use `reviewSubmitted`; authors the other four.
+ */
+export const notificationSettings = sqliteTable('notification_settings', {
+  userId: text('user_id')
+    .primaryKey()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  reviewSubmitted: integer('review_submitted', { mode: 'boolean' }).notNull().default(true),
+  changesRequested: integer('changes_requested', { mode: 'boolean' }).notNull().default(true),
+  approved: integer('approved', { mode: 'boolean' }).notNull().default(true),
+  published: integer('published', { mode: 'boolean' }).notNull().default(true),
+  retracted: integer('retracted', { mode: 'boolean' }).notNull().default(true),
+  updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+    .notNull()
+    .default(sql`(unixepoch('subsec') * 1000)`),
+});
