@@ -109,8 +109,16 @@ async function renderVariants(buffer: Buffer, originalWidth: number): Promise<Ma
     .toBuffer({ resolveWithObject: true });
   const raw = { raw: { width: info.width, height: info.height, channels: info.channels } };
   const variants = new Map<number, Buffer>();
+  const byRealWidth = new Map<number, Buffer>();
   for (const width of VARIANT_WIDTHS) {
-    variants.set(width, await sharp(data, raw).resize({ width, withoutEnlargement: true }).webp({ quality: 80, effort: 4 }).toBuffer());
+    // A narrow original gives the same pixels for several names: encode once, store under each name.
+    const real = Math.min(width, info.width);
+    let encoded = byRealWidth.get(real);
+    if (!encoded) {
+      encoded = await sharp(data, raw).resize({ width: real }).webp({ quality: 80, effort: 4 }).toBuffer();
+      byRealWidth.set(real, encoded);
+    }
+    variants.set(width, encoded);
   }
   variants.set(PLACEHOLDER_WIDTH, await sharp(data, raw).resize({ width: PLACEHOLDER_WIDTH }).blur(0.6).webp({ quality: 40 }).toBuffer());
   return variants;
