@@ -9,7 +9,9 @@ export default defineConfig({
   workers: 1,
   retries: process.env.CI ? 1 : 0,
   reporter: [['list']],
-  timeout: 30_000,
+  // Generous: CI machines are shared and noisy; these are end-to-end flows, not timing checks.
+  timeout: 120_000,
+  expect: { timeout: 15_000 },
   use: {
     baseURL,
     trace: 'retain-on-failure',
