@@ -16,12 +16,12 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, isNotNull, or } from 'drizzle-orm';
 import type { Db } from './connection';
-import { gearItems, reviewItems, reviewRevisions, reviews, reviewStateEvents, specs, users, type Role } from './schema';
+import { gearItems, notificationSettings, reviewItems, reviewRevisions, reviews, reviewStateEvents, specs, users, type Role } from './schema';
 import { AppError } from '@/lib/http/errors';
 import { hasRole } from '@/lib/auth/roles';
 import { parseWith } from '@/lib/http/api';
 import { decide, canEditText, availableActions, type WorkflowAction, type WorkflowState } from '@/lib/workflow/transitions';
-import { createReviewSchema, reviewDraftSchema, submitProblems, type Disclosure } from '@/lib/reviews/schemas';
+import { createReviewSchema, notificationSettingsSchema, reviewDraftSchema, submitProblems, type Disclosure, type NotificationSettings } from '@/lib/reviews/schemas';
 
 export interface Actor {
   id: string;
@@ -625,19 +625,44 @@ export function specTableItems(db: Db, slugs: string[], viewer: Actor | null): S
   });
 }
 
-/** Editors and admins who get a mail when a draft is submitted (never the author themselves, never disabled accounts). */
+/* ------------------------------------------------------------------------------------------------ */
+/* Mail recipients and their settings                                                               */
+/* ------------------------------------------------------------------------------------------------ */
+
+export const DEFAULT_NOTIFICATION_SETTINGS: NotificationSettings = { reviewSubmitted: true, changesRequested: true, approved: true, published: true, retracted: true };
+
+/** A user's mail switches (all on when never saved). */
+export function getNotificationSettings(db: Q, userId: string): NotificationSettings {
+  const row = db.select().from(notificationSettings).where(eq(notificationSettings.userId, userId)).get();
+  if (!row) return { ...DEFAULT_NOTIFICATION_SETTINGS };
+  return { reviewSubmitted: row.reviewSubmitted, changesRequested: row.changesRequested, approved: row.approved, published: row.published, retracted: row.retracted };
+}
+
+/** Saves the signed-in user's own switches (422 on bad input, nothing written). */
+export function saveNotificationSettings(db: Db, actor: Actor, raw: unknown, now = new Date()): NotificationSettings {
+  const input = parseWith(notificationSettingsSchema, raw);
+  db.insert(notificationSettings)
+    .values({ userId: actor.id, ...input, updatedAt: now })
+    .onConflictDoUpdate({ target: notificationSettings.userId, set: { ...input, updatedAt: now } })
+    .run();
+  return input;
+}
+
+/** Editors and admins who get a mail when a draft is submitted: never the author, never disabled accounts, never those who turned it off. */
 export function editorRecipients(db: Db, exceptUserId: string): { id: string; email: string; name: string }[] {
   return db
-    .select({ id: users.id, email: users.email, name: users.name, role: users.role, disabledAt: users.disabledAt })
+    .select({ id: users.id, email: users.email, name: users.name, disabledAt: users.disabledAt, wants: notificationSettings.reviewSubmitted })
     .from(users)
+    .leftJoin(notificationSettings, eq(notificationSettings.userId, users.id))
     .where(inArray(users.role, ['editor', 'admin']))
     .all()
-    .filter((u) => u.disabledAt === null && u.id !== exceptUserId)
+    .filter((u) => u.disabledAt === null && u.id !== exceptUserId && u.wants !== false)
     .map(({ id, email, name }) => ({ id, email, name }));
 }
 
-/** The author's address for workflow mail, or null for a disabled or deleted account. */
-export function authorRecipient(db: Db, authorId: string): { id: string; email: string; name: string } | null {
+/** The author's address for a decision's mail, or null (disabled or deleted account, or that mail turned off). */
+export function authorRecipient(db: Db, authorId: string, setting: Exclude<keyof NotificationSettings, 'reviewSubmitted'>): { id: string; email: string; name: string } | null {
   const u = db.select().from(users).where(eq(users.id, authorId)).get();
-  return u && u.disabledAt === null ? { id: u.id, email: u.email, name: u.name } : null;
+  if (!u || u.disabledAt !== null) return null;
+  return getNotificationSettings(db, authorId)[setting] ? { id: u.id, email: u.email, name: u.name } : null;
 }

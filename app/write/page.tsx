@@ -23,7 +23,12 @@ export default async function WritePage() {
         </Link>{' '}
         / Reviews
       </p>
-      <h1 className="mt-1 text-3xl font-bold tracking-tight">Your reviews</h1>
+      <div className="mt-1 flex flex-wrap items-baseline gap-4">
+        <h1 className="text-3xl font-bold tracking-tight">Your reviews</h1>
+        <Link href="/write/notifications" className="text-sm text-lichen underline">
+          Mail settings
+        </Link>
+      </div>
       <div className="mt-8 grid gap-10 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <section aria-labelledby="mine">
           <h2 id="mine" className="sr-only">

@@ -17,7 +17,6 @@ export function DisclosureNotice({ disclosure, note }: { disclosure: Disclosure 
       <p>
         <strong>How we got this gear:</strong> {DISCLOSURE_LABELS[disclosure]}.{note.trim() ? ` ${note.trim()}` : ''}
       </p>
-      {disclosure !== 'bought-retail' ? <p className="mt-1 text-slate">The maker did not see or approve this review before publication unless the note says so.</p> : null}
     </aside>
   );
 }

@@ -8,6 +8,7 @@ import { Button, Field, FormMessage, TextInput } from '@/components/ui/form';
 import { saveReviewDraftAction, startCorrectionAction, submitReviewAction, withdrawReviewAction, type ReviewFormState } from '@/lib/reviews/actions';
 import { DISCLOSURE_LABELS, DISCLOSURES, reviewDraftSchema, wordCount, type Disclosure, type ReviewDraftData, type ReviewDraftInput } from '@/lib/reviews/schemas';
 import type { WorkflowAction, WorkflowState } from '@/lib/workflow/transitions';
+import { formatDateTime } from '@/lib/reviews/dates';
 import { ItemsPicker } from './items-picker';
 import { MarkdownPreview } from './markdown-preview';
 
@@ -273,11 +274,17 @@ function SaveIndicator({ status, editable }: { status: SaveStatus; editable: boo
         : status.kind === 'error'
           ? status.message
           : status.at
-            ? `Saved ${new Date(status.at).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', second: '2-digit' })}`
+            ? `Saved ${savedWhen(new Date(status.at))}`
             : 'Saved';
   return (
     <span role="status" aria-live="polite" data-testid="save-status" data-state={status.kind} className={`text-sm ${status.kind === 'error' ? 'text-danger' : 'text-slate'}`}>
       {text}
     </span>
   );
+}
+
+/** UTC, so the server-rendered and hydrated text agree. */
+function savedWhen(at: Date): string {
+  const sameDay = at.toISOString().slice(0, 10) === new Date().toISOString().slice(0, 10);
+  return sameDay ? `${at.toISOString().slice(11, 19)} UTC` : formatDateTime(at);
 }

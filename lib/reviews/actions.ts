@@ -9,7 +9,7 @@
 import { redirect } from 'next/navigation';
 import { revalidatePath } from 'next/cache';
 import { getDb } from '@/db';
-import { createReviewDraft, transitionReview, updateReviewDraft, type TransitionOutcome } from '@/db/reviews';
+import { createReviewDraft, saveNotificationSettings, transitionReview, updateReviewDraft, type TransitionOutcome } from '@/db/reviews';
 import { logAuthEvent } from '@/db/users';
 import { requireRole, requireUser, type CurrentUser } from '@/lib/auth/guard';
 import { parseWith } from '@/lib/http/api';
@@ -122,5 +122,14 @@ export async function retractReviewAction(reviewId: unknown, input: unknown): Pr
     who.current = await requireUser();
     const { note } = parseWith(retractSchema, input);
     return transition('retract', reviewId, note, toDesk);
+  });
+}
+
+/** Saves the signed-in user's own mail switches. */
+export async function saveNotificationSettingsAction(input: unknown): Promise<ReviewFormState> {
+  return run('save notification settings', async (who) => {
+    const user = (who.current = await requireUser());
+    saveNotificationSettings(getDb(), user, input);
+    return { ok: true, message: 'Saved.' };
   });
 }

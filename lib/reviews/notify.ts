@@ -72,11 +72,19 @@ export function buildNotifications(
   }
 }
 
-/** Sends the mail of a committed transition. Never throws. */
+const AUTHOR_SETTING: Partial<Record<TransitionOutcome['action'], 'changesRequested' | 'approved' | 'published' | 'retracted'>> = {
+  'request-changes': 'changesRequested',
+  approve: 'approved',
+  publish: 'published',
+  retract: 'retracted',
+};
+
+/** Sends the mail of a committed transition, to those who have not turned it off. Never throws. */
 export async function notifyTransition(db: Db, outcome: TransitionOutcome, actor: { id: string; name: string }): Promise<number> {
   try {
     const editors = outcome.action === 'submit' ? editorRecipients(db, outcome.authorId) : [];
-    const author = outcome.action === 'submit' ? null : authorRecipient(db, outcome.authorId);
+    const setting = AUTHOR_SETTING[outcome.action];
+    const author = setting ? authorRecipient(db, outcome.authorId, setting) : null;
     const messages = buildNotifications(outcome, { editors, author: author && author.id !== actor.id ? author : null }, actor.name);
     const results = await Promise.allSettled(messages.map((m) => sendMail(m)));
     for (const r of results) if (r.status === 'rejected') console.error('Review notification not sent', r.reason);

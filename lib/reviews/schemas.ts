@@ -119,3 +119,21 @@ export function wordCount(markdown: string): number {
   const words = markdown.match(/[\p{L}\p{N}][\p{L}\p{N}'’.-]*/gu);
   return words ? words.length : 0;
 }
+
+/** Per-user switches for workflow mail (the notification settings form, its action and db/reviews.ts). */
+export const notificationSettingsSchema = z.strictObject({
+  reviewSubmitted: z.boolean(),
+  changesRequested: z.boolean(),
+  approved: z.boolean(),
+  published: z.boolean(),
+  retracted: z.boolean(),
+});
+export type NotificationSettings = z.output<typeof notificationSettingsSchema>;
+
+export const NOTIFICATION_LABELS: Record<keyof NotificationSettings, { label: string; who: string }> = {
+  reviewSubmitted: { label: 'A review is submitted to the desk', who: 'editors' },
+  changesRequested: { label: 'An editor asks for changes to my review', who: 'authors' },
+  approved: { label: 'My review is approved', who: 'authors' },
+  published: { label: 'My review is published', who: 'authors' },
+  retracted: { label: 'My review is retracted', who: 'authors' },
+};

@@ -156,3 +156,30 @@ describe('review workflow mail, through the server actions', () => {
     expect(buildNotifications({ ...outcome, action: 'publish' }, { editors: [], author: null }, 'X')).toEqual([]);
   });
 });
+
+describe('per-user mail switches', () => {
+  it('skips editors and authors who turned a mail off, and rejects bad settings without writing', async () => {
+    const all = { reviewSubmitted: true, changesRequested: true, approved: true, published: true, retracted: true };
+    expect(await as(u.editor2, () => actions.saveNotificationSettingsAction({ ...all, reviewSubmitted: false }))).toMatchObject({ ok: true });
+    expect(await as(u.author, () => actions.saveNotificationSettingsAction({ ...all, changesRequested: false }))).toMatchObject({ ok: true });
+    expect(await as(u.author, () => actions.saveNotificationSettingsAction({ ...all, approved: 'yes' }))).toMatchObject({ ok: false, fields: { approved: expect.any(Array) } });
+    expect(await as(null, () => actions.saveNotificationSettingsAction(all))).toMatchObject({ ok: false, message: 'Sign in to do this.' });
+
+    const created = await as(u.author, () => actions.createReviewAction({ title: 'Switches test', itemIds: [itemId] }));
+    const id = (created as { redirectTo: string }).redirectTo.slice('/write/'.length);
+    await as(u.author, () =>
+      actions.saveReviewDraftAction(id, { title: 'Switches test', summary: 'S.', verdict: 'V.', body: 'B.', disclosure: 'bought-retail', disclosureNote: '', correctionNote: '', itemIds: [itemId] }),
+    );
+    let mark = lastMailId();
+    await as(u.author, () => actions.submitReviewAction(id));
+    const mails = await waitForMail(mark, 2);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(mailsAfter(mark).map((m) => m.toAddress).sort()).toEqual([u.admin.email, u.editor.email].sort());
+    expect(mails.length).toBe(2);
+
+    mark = lastMailId();
+    await as(u.editor, () => actions.requestChangesAction(id, { comment: 'One more thing.' }));
+    await new Promise((r) => setTimeout(r, 500));
+    expect(mailsAfter(mark)).toEqual([]);
+  });
+});
