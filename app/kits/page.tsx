@@ -17,7 +17,7 @@ export default async function KitsPage() {
   const catalog = readableCatalog(db, user);
   const mine = user ? listOwnKits(db, user) : [];
   return (
-    <main id="main" className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
+    <main className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
       <h1 className="text-3xl font-bold tracking-tight">Kits and power budget</h1>
       <KitIntro />
       {user ? (

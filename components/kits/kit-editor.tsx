@@ -285,7 +285,7 @@ export function KitEditor({ catalog, initial, mode }: { catalog: KitCatalog; ini
                 <Link href="/signin?next=%2Fkits" className="rounded-md bg-lichen px-4 py-2 text-sm font-semibold text-paper hover:bg-lichen-dark">
                   Sign in to save
                 </Link>
-                <Link href="/signup" className="rounded-md border border-rule px-4 py-2 text-sm font-semibold hover:bg-paper">
+                <Link href="/signup?next=%2Fkits" className="rounded-md border border-rule px-4 py-2 text-sm font-semibold hover:bg-paper">
                   Create an account
                 </Link>
               </>

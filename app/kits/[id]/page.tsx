@@ -40,7 +40,7 @@ export default async function KitPage({ params, searchParams }: { params: Promis
     }),
   };
   return (
-    <main id="main" className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
+    <main className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
       <p className="text-sm">
         <Link href="/kits" className="text-lichen underline">
           ← Your kits

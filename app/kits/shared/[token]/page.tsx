@@ -30,7 +30,7 @@ export default async function SharedKitPage({ params }: { params: Promise<{ toke
   const totals = kitTotals(kit.entries, catalog);
   const resolved = resolveEntries(kit.entries, catalog);
   return (
-    <main id="main" className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
+    <main className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
       <p className="text-sm font-semibold uppercase tracking-wide text-slate">Shared kit · read-only</p>
       <h1 className="mt-1 text-3xl font-bold tracking-tight" data-testid="kit-title">
         {kit.name}
