@@ -394,3 +394,22 @@ describe('who may see and change a field test (AC-02, CS-01, CS-03)', () => {
     expect(listOwnFieldTests(db, u.author.id).map((t) => t.id)).toEqual([mine]);
   });
 });
+
+describe('demo seed', () => {
+  it('stores its field tests as series that the field-test pages analyse to the seeded measured figures', async () => {
+    const { seedDemo } = await import('@/db/seed');
+    await seedDemo(db);
+    const approved = db.$client.prepare("select id from field_tests where id like 'demo-ft-%' and status = 'approved'").all() as { id: string }[];
+    expect(approved.length).toBeGreaterThanOrEqual(3);
+    for (const { id } of approved) {
+      const view = getFieldTestView(db, id, null);
+      expect(view.trials.every((t) => t.analysis.ok)).toBe(true);
+      for (const item of view.analysis.items) {
+        for (const s of item.summaries.filter((x) => x.specKey)) {
+          const m = measured(item.itemId, s.specKey!);
+          if (m?.fieldTestId === id) expect(m.value).toBeCloseTo(s.summary.mean, 9);
+        }
+      }
+    }
+  });
+});

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { verifyPassword } from '@/lib/auth/password';
 import { energyWh, isCategory, lightRuntime, summarize, valueRatios, type Specs } from '@/lib/measure';
 import { ROLES } from '@/db/schema';
+import { decodeSeries } from '@/lib/readings';
 import type { Db } from '@/db/connection';
 import { createTestDb } from '@/db/test-db';
 import { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, isDatabaseEmpty, seedDemo, type SeedResult } from '@/db/seed';
@@ -139,7 +140,13 @@ describe('seedDemo on a fresh database', () => {
 
     const trialsOf = (testId: string, itemId: string) =>
       all<{ id: string; typed_values: string | null }>('select id, typed_values from trials where field_test_id = ? and gear_item_id = ? order by id', testId, itemId);
-    const series = (trialId: string) => all<{ t: number; value: number | null; watts: number | null }>('select t, value, watts from readings where trial_id = ? order by seq', trialId);
+    // Every row of a trial's readings is stored as one TBS1 series (lib/readings encodeSeries).
+    const series = (trialId: string) => {
+      const row = all<{ series: Buffer | null }>('select series from trials where id = ?', trialId)[0];
+      const decoded = row?.series ? decodeSeries(new Uint8Array(row.series)) : null;
+      if (!decoded?.ok) return [];
+      return decoded.samples.map((s) => ({ t: s.t, value: s.value ?? null, watts: s.watts ?? null }));
+    };
 
     for (const m of measured) {
       const trials = trialsOf(m.field_test_id, m.gear_item_id);
@@ -170,6 +177,8 @@ describe('seedDemo on a fresh database', () => {
     expect(tests.some((t) => t.status === 'draft')).toBe(true);
     expect(tests.filter((t) => t.status === 'approved').length).toBeGreaterThanOrEqual(3);
     for (const t of tests) expect(['Upper Meadow camp', 'Lakeshore test bench']).toContain(t.place_label);
+    const seriesless = all("select t.id from trials t join field_tests f on f.id = t.field_test_id where f.kind != 'mass-check' and (t.series is null or t.series_length < 2)");
+    expect(seriesless).toEqual([]);
     const trialless = all('select id from field_tests where id not in (select field_test_id from trials)');
     expect(trialless).toEqual([]);
     const unlinked = all('select t.id from trials t left join field_test_items i on i.field_test_id = t.field_test_id and i.gear_item_id = t.gear_item_id where i.field_test_id is null');
