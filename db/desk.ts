@@ -5,7 +5,7 @@
  */
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from './connection';
-import { fieldTestItems, fieldTests, gearItems, gearStateEvents, reviewRevisions, reviews, reviewStateEvents, users } from './schema';
+import { fieldTestItems, fieldTests, fieldTestStateEvents, gearItems, gearStateEvents, reviewRevisions, reviews, reviewStateEvents, users } from './schema';
 import type { DeskKind } from '@/lib/reviews/schemas';
 
 export interface DeskRow {
@@ -141,7 +141,13 @@ function fieldTestRows(db: Db): DeskRow[] {
       authorId: test.ownerId,
       authorName: who.get(test.ownerId) ?? 'Former member',
       state: 'in-review' as const,
-      since: test.createdAt,
+      since:
+        db
+          .select({ at: fieldTestStateEvents.createdAt })
+          .from(fieldTestStateEvents)
+          .where(and(eq(fieldTestStateEvents.fieldTestId, test.id), eq(fieldTestStateEvents.toState, 'in-review')))
+          .orderBy(desc(fieldTestStateEvents.createdAt))
+          .get()?.at ?? test.createdAt,
       href: items[0] ? `/gear/${encodeURIComponent(items[0].slug)}` : '/desk',
       detail: items.length ? `Items: ${items.map((i) => i.name).join(', ')}` : 'No items linked',
     };

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
-import { gearItems, reviewItems, reviewRevisions, reviews, reviewStateEvents, type Role } from '@/db/schema';
+import { fieldTestItems, fieldTests, fieldTestStateEvents, gearItems, reviewItems, reviewRevisions, reviews, reviewStateEvents, type Role } from '@/db/schema';
 import { createUser } from '@/db/users';
 import {
   createReviewDraft,
@@ -260,7 +260,12 @@ describe('publishing, visibility and corrections', () => {
     const older = reviewIn('in-review', u.other.id);
     db.update(reviewStateEvents).set({ createdAt: new Date('2020-01-01') }).where(eq(reviewStateEvents.revisionId, db.select().from(reviewRevisions).where(eq(reviewRevisions.reviewId, older)).get()!.id)).run();
     db.update(gearItems).set({ status: 'in-review' }).where(eq(gearItems.id, othersDraftItem)).run();
+    const testId = randomUUID();
+    db.insert(fieldTests).values({ id: testId, ownerId: u.author.id, kind: 'light-runtime', testedAt: new Date('2026-10-06'), placeLabel: 'Lakeshore test bench', status: 'in-review' }).run();
+    db.insert(fieldTestItems).values({ fieldTestId: testId, gearItemId: publicItem }).run();
+    db.insert(fieldTestStateEvents).values({ fieldTestId: testId, fromState: 'draft', toState: 'in-review', actorId: u.author.id, createdAt: new Date('2021-01-01') }).run();
     const { rows, authors } = listDeskQueue(db);
+    expect(rows.find((r) => r.kind === 'field-test' && r.id === testId)).toMatchObject({ since: new Date('2021-01-01'), href: '/gear/public-lantern' });
     expect(rows[0]?.id).toBe(older);
     expect(rows.some((r) => r.kind === 'gear-item' && r.href === '/gear/others-draft-lantern')).toBe(true);
     expect(authors.map((a) => a.id)).toContain(u.other.id);
