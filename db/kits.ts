@@ -5,6 +5,7 @@ import { fieldTests, gearItems, kitEntries, kits, readings, specs, trials } from
 import { AppError } from '@/lib/http/errors';
 import { parseWith } from '@/lib/http/api';
 import { CHEMISTRIES, isCategory, MeasureError, solarOutput, type Chemistry } from '@/lib/measure';
+import { decodeSeries } from '@/lib/readings/encoding';
 import { kitInputSchema, kitPatchSchema, type KitEntryInput, type KitInput } from '@/lib/kits/schemas';
 import { isSky, SKY_LABELS, type Sky } from '@/lib/kits/sky';
 import type { KitCatalog, KitCatalogItem, PairedSkyShare } from '@/lib/kits/types';
@@ -113,6 +114,18 @@ export function readableCatalog(db: Db, viewer: KitViewer | null, ids?: readonly
   return catalog;
 }
 
+/** A trial's {t, watts} samples: the encoded series (lib/readings TBS1), else the legacy readings rows. */
+function trialPowerPoints(db: Db, trialId: string, series: Uint8Array | null): { t: number; watts: number }[] {
+  const rows: { t: number; watts?: number | null }[] = [];
+  if (series) {
+    const decoded = decodeSeries(series);
+    if (decoded.ok) rows.push(...decoded.samples);
+  } else {
+    rows.push(...db.select({ t: readings.t, watts: readings.watts }).from(readings).where(eq(readings.trialId, trialId)).orderBy(asc(readings.seq)).all());
+  }
+  return rows.filter((r): r is { t: number; watts: number } => typeof r.watts === 'number');
+}
+
 /**
  * Sky shares from approved solar-output field tests: for each panel, the mean share of its rating
  * under each sky ÷ the mean share under a clear sky (needs both; lib/measure solarOutput).
@@ -125,7 +138,7 @@ function pairedSkyShares(db: Db, panels: KitCatalogItem[]): Map<string, PairedSk
   }
   if (rated.size === 0) return new Map();
   const trialRows = db
-    .select({ trialId: trials.id, gearItemId: trials.gearItemId, sky: fieldTests.sky, testedAt: fieldTests.testedAt })
+    .select({ trialId: trials.id, gearItemId: trials.gearItemId, sky: fieldTests.sky, testedAt: fieldTests.testedAt, series: trials.series })
     .from(trials)
     .innerJoin(fieldTests, eq(fieldTests.id, trials.fieldTestId))
     .where(
@@ -139,8 +152,7 @@ function pairedSkyShares(db: Db, panels: KitCatalogItem[]): Map<string, PairedSk
   const bySky = new Map<string, Map<string, { shares: number[]; dates: Set<string> }>>();
   for (const t of trialRows) {
     if (!t.sky || !(t.sky === 'clear' || isSky(t.sky))) continue;
-    const series = db.select({ t: readings.t, watts: readings.watts }).from(readings).where(eq(readings.trialId, t.trialId)).orderBy(asc(readings.seq)).all();
-    const points = series.filter((r): r is { t: number; watts: number } => r.watts !== null);
+    const points = trialPowerPoints(db, t.trialId, t.series);
     let share: number;
     try {
       share = solarOutput(points, rated.get(t.gearItemId) ?? 0).shareOfRating;
