@@ -24,6 +24,7 @@ import {
   gearPendingChanges,
   gearRatios,
   gearStateEvents,
+  photos,
   specChanges,
   specs,
   users,
@@ -483,9 +484,27 @@ const requireEditRights = (actor: Actor) => (item: GearItem) => {
   if (!canEditGear(actor, item)) throw new AppError('forbidden', 'Only the author or an editor may do this.');
 };
 
-/** Author (or editor) submits a draft or a returned item for review. */
+/** Author (or editor) submits a draft or a returned item for review; every photo needs its alt text first (409). */
 export function submitGear(db: Db, actor: Actor, slug: string, now = new Date()) {
-  return transition(db, slug, actor, requireEditRights(actor), ['draft', 'changes-requested'], 'in-review', 'Only a draft or an item sent back can be submitted.', undefined, '', now);
+  return transition(
+    db,
+    slug,
+    actor,
+    requireEditRights(actor),
+    ['draft', 'changes-requested'],
+    'in-review',
+    'Only a draft or an item sent back can be submitted.',
+    (tx, item) => {
+      const missing = tx
+        .select({ id: photos.id })
+        .from(photos)
+        .where(and(eq(photos.gearItemId, item.id), eq(photos.altText, '')))
+        .all().length;
+      if (missing > 0) throw new AppError('conflict', `Describe every photo first: ${missing} photo${missing === 1 ? ' has' : 's have'} no alt text.`);
+    },
+    '',
+    now,
+  );
 }
 
 /** The author takes a submitted item back before an editor acts. */
@@ -624,8 +643,10 @@ export function getGearView(db: Db, slug: string, viewer: Actor | null): GearVie
 
   const ratios = ratiosFor(db, item.id, version);
   const rated = version.claims.find((c) => c.key === 'ratedEnergy' && c.mode === '')?.value;
+  // Power banks are lithium unless stated otherwise; other categories only when their chemistry says so.
+  const chemistry = (version.chemistry ?? (version.category === 'power-bank' ? 'li-ion' : null)) as Chemistry | null;
   const airline =
-    rated !== undefined && (version.category === 'power-bank' || version.category === 'battery-12v' || version.category === 'light') && isLithium(version.chemistry as Chemistry | null)
+    rated !== undefined && (version.category === 'power-bank' || version.category === 'battery-12v' || version.category === 'light') && isLithium(chemistry)
       ? { wh: rated, band: airlineBand(rated) }
       : null;
 

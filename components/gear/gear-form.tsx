@@ -205,7 +205,7 @@ function QuantityField({
     <Field id={id} label={label} errors={errors}>
       <div className="flex items-center gap-2">
         <TextInput id={id} placeholder={placeholder} autoComplete="off" invalid={!!errors?.length} aria-describedby={`${id}-echo`} {...register(name)} />
-        <span className="flex-none font-mono text-xs text-slate" aria-hidden="true">
+        <span className="w-24 flex-none font-mono text-[11px] leading-tight text-slate sm:w-36" aria-hidden="true">
           {TYPED_UNITS[quantity].slice(0, 4).join(' · ')}
         </span>
       </div>

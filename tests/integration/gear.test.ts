@@ -2,7 +2,8 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { getTableName } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
-import { gearFigureNotes, gearItems, gearPendingChanges, gearRatios, specChanges, specs, type Role } from '@/db/schema';
+import fc from 'fast-check';
+import { gearFigureNotes, gearItems, gearPendingChanges, gearRatios, photos, specChanges, specs, type Role } from '@/db/schema';
 import { createUser } from '@/db/users';
 import { AppError } from '@/lib/http/errors';
 import { convert, chargeToWh, valueRatios } from '@/lib/measure';
@@ -156,6 +157,13 @@ describe('gear service', () => {
     expect(history[2]).toMatchObject({ oldValue: expect.closeTo(348.6991344375, 9), newValue: 350, changedById: users.editor.id });
   });
 
+  it('refuses to submit while a photo has no alt text (issue 4: alt text before review)', () => {
+    const { id, slug } = createGear(state.db, users.author, lantern());
+    state.db.insert(photos).values({ id: 'p1', ownerId: users.author.id, gearItemId: id, storageKey: 'k', width: 1, height: 1, bytes: 1, altText: '' }).run();
+    expect(() => submitGear(state.db, users.author, slug)).toThrow(expect.objectContaining({ code: 'conflict' }));
+    expect(findVisibleGear(state.db, slug, users.author).status).toBe('draft');
+  });
+
   it('backfills stored ratios for approved items that have none', () => {
     const { slug } = createGear(state.db, users.author, lantern());
     submitGear(state.db, users.author, slug);
@@ -239,6 +247,32 @@ describe('POST /api/v1/gear and PATCH /api/v1/gear/{slug}', () => {
     const after = counts();
     expect((await PATCH(jsonRequest('PATCH', `/api/v1/gear/${slug}`, { name: 'Mine now' }), params(slug))).status).toBe(403);
     expect(counts()).toEqual(after);
+  });
+});
+
+describe('fuzzing the write endpoints (IV-01)', () => {
+  it('never answers 5xx and stores nothing for refused bodies', async () => {
+    state.user = users.author;
+    const { slug } = createGear(state.db, users.author, lantern());
+    const near = fc.record({
+      category: fc.oneof(fc.constant('light'), fc.string()),
+      name: fc.oneof(fc.string(), fc.integer()),
+      maker: fc.string(),
+      specs: fc.oneof(fc.jsonValue(), fc.record({ mass: fc.record({ value: fc.oneof(fc.string(), fc.double(), fc.constant('12.3 oz')) }) })),
+      price: fc.oneof(fc.jsonValue(), fc.record({ amount: fc.oneof(fc.string(), fc.double()), currency: fc.string() })),
+      modes: fc.oneof(fc.jsonValue(), fc.array(fc.record({ name: fc.string(), powerDraw: fc.oneof(fc.string(), fc.double()) }))),
+    }, { requiredKeys: [] });
+    await fc.assert(
+      fc.asyncProperty(fc.oneof(fc.jsonValue(), near), async (body) => {
+        const before = counts();
+        const created = await POST(jsonRequest('POST', '/api/v1/gear', body));
+        expect(created.status).toBeLessThan(500);
+        const patched = await PATCH(jsonRequest('PATCH', `/api/v1/gear/${slug}`, body), params(slug));
+        expect(patched.status).toBeLessThan(500);
+        if (created.status >= 400 && patched.status >= 400) expect(counts()).toEqual(before);
+      }),
+      { numRuns: 300, seed: Number(process.env.FC_SEED ?? 4) },
+    );
   });
 });
 

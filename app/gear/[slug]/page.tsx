@@ -6,13 +6,14 @@ import { ReviewActions } from '@/components/gear/review-actions';
 import { SpecsTable } from '@/components/gear/specs-table';
 import { StatusBadge, STATE_LABELS } from '@/components/gear/status-badge';
 import { getDb } from '@/db';
-import { getGearView } from '@/db/gear';
+import { getGearView, specHistory } from '@/db/gear';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { CATEGORY_DEFS, CHEMISTRY_LABELS, kindLabel } from '@/lib/gear/categories';
 import { formatMoney, formatQuantity } from '@/lib/gear/format';
 import { orPageError } from '@/lib/gear/page-errors';
 import { gearEditPath } from '@/lib/gear/paths';
-import type { Chemistry } from '@/lib/measure';
+import { isSpecKey, SPECS, type Chemistry } from '@/lib/measure';
+import { formatSpec } from '@/lib/gear/format';
 
 export const dynamic = 'force-dynamic';
 
@@ -40,6 +41,9 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
   const def = CATEGORY_DEFS[version.category];
   const price = version.priceMinor !== null && version.priceCurrency ? formatMoney({ amountMinor: version.priceMinor, currency: version.priceCurrency }) : null;
   const lastComment = view.events.find((e) => e.toState === 'changes-requested')?.comment;
+  const history = view.insider && viewer ? specHistory(getDb(), slug, viewer) : [];
+  const figure = (key: string, value: number | null) => (value === null ? '—' : isSpecKey(key) ? formatSpec(key, value) : String(value));
+  const CONTEXT = { edit: 'draft edit', pending: 'pending change', approval: 'approved' } as const;
 
   return (
     <main className="mx-auto max-w-4xl space-y-10 px-4 py-10 sm:px-6">
@@ -166,6 +170,39 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
       {/* Photos gallery: wired in by the photos work (issue 4). */}
 
       <CategoryCautions cautions={def.cautions} />
+
+      {history.length ? (
+        <details className="rounded-lg border border-rule p-4 text-sm" data-testid="spec-history">
+          <summary className="cursor-pointer font-semibold">Spec change history (author and editors)</summary>
+          <table className="mt-3 w-full text-left">
+            <thead className="text-xs uppercase tracking-wide text-slate">
+              <tr>
+                <th scope="col" className="py-1 pr-3">When</th>
+                <th scope="col" className="py-1 pr-3">Who</th>
+                <th scope="col" className="py-1 pr-3">Spec</th>
+                <th scope="col" className="py-1 pr-3">Old → new</th>
+                <th scope="col" className="py-1">Kind</th>
+              </tr>
+            </thead>
+            <tbody>
+              {history.map((h, i) => (
+                <tr key={i} className="border-t border-rule">
+                  <td className="py-1 pr-3 figure font-mono">{h.createdAt.toISOString().slice(0, 16).replace('T', ' ')}</td>
+                  <td className="py-1 pr-3">{h.who ?? '—'}</td>
+                  <td className="py-1 pr-3">
+                    {isSpecKey(h.key) ? SPECS[h.key].label : h.key}
+                    {h.mode ? ` (${h.mode})` : ''}
+                  </td>
+                  <td className="py-1 pr-3 figure font-mono">
+                    {figure(h.key, h.oldValue)} → {figure(h.key, h.newValue)}
+                  </td>
+                  <td className="py-1 text-slate">{CONTEXT[h.context]}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </details>
+      ) : null}
     </main>
   );
 }
