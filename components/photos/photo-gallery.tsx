@@ -41,7 +41,7 @@ export async function PhotoGallery({ gearItemId, slug, itemName, manage = false 
         const placeholder = placeholders[index];
         return (
           <li key={photo.id} className="space-y-2">
-            <figure className="space-y-1">
+            <figure>
               <div
                 className="overflow-hidden rounded-md bg-card bg-cover bg-center"
                 style={{ aspectRatio: `${photo.width} / ${photo.height}`, ...(placeholder ? { backgroundImage: `url("${placeholder}")` } : {}) }}
@@ -59,7 +59,6 @@ export async function PhotoGallery({ gearItemId, slug, itemName, manage = false 
                   className="block h-full w-full object-cover"
                 />
               </div>
-              {photo.altText ? <figcaption className="text-sm text-slate">{photo.altText}</figcaption> : null}
             </figure>
             {manage ? <PhotoActions slug={slug} photoId={photo.id} altText={photo.altText} /> : null}
           </li>

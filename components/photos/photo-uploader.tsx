@@ -65,9 +65,9 @@ export function PhotoUploader({ slug, photoCount, maxPhotos = 10 }: PhotoUploade
     entriesRef.current = entries;
   }, [entries]);
 
-  const uploaded = entries.filter((e) => e.status === 'done').length;
   const pending = entries.filter((e) => e.status !== 'done');
-  const room = Math.max(0, maxPhotos - photoCount - uploaded);
+  // photoCount comes from the server and is refreshed after each successful batch (router.refresh()).
+  const room = Math.max(0, maxPhotos - photoCount);
 
   useEffect(() => () => entriesRef.current.forEach((e) => URL.revokeObjectURL(e.preview)), []);
 
@@ -79,7 +79,11 @@ export function PhotoUploader({ slug, photoCount, maxPhotos = 10 }: PhotoUploade
       for (const file of accepted.slice(taken.length)) words.push(`${file.name} was not added: an item can have at most ${maxPhotos} photos.`);
       setNotices(words);
       setEntries((current) => [
-        ...current,
+        ...current.filter((e) => {
+          if (e.status !== 'done') return true;
+          URL.revokeObjectURL(e.preview);
+          return false;
+        }),
         ...taken.map((file) => {
           counter.current += 1;
           return { key: `f${counter.current}`, file, preview: URL.createObjectURL(file), alt: '', status: 'ready' as const, progress: 0 };
@@ -143,7 +147,7 @@ export function PhotoUploader({ slug, photoCount, maxPhotos = 10 }: PhotoUploade
           Add photos
         </h2>
         <p className="text-sm text-slate">
-          {photoCount + uploaded} of {maxPhotos} photos · JPEG, PNG, WebP or AVIF · up to 15 MB each · location and camera data are removed
+          {photoCount} of {maxPhotos} photos · JPEG, PNG, WebP or AVIF · up to 15 MB each · location and camera data are removed
         </p>
       </div>
 
