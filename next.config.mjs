@@ -24,6 +24,8 @@ const nextConfig = {
   experimental: {
     authInterrupts: true,
     serverActions: { bodySizeLimit: '1mb' },
+    // proxy.ts only matches guarded pages; should it ever match uploads, bodies over this would be cut silently.
+    proxyClientMaxBodySize: '16mb',
   },
   async headers() {
     return [

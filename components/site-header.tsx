@@ -7,6 +7,7 @@ import { hasRole, ROLE_LABELS } from '@/lib/auth/roles';
 const readerLinks = [
   { href: '/gear', label: 'Gear' },
   { href: '/reviews', label: 'Reviews' },
+  { href: '/kits', label: 'Kits' },
   { href: '/how-we-test', label: 'How we test' },
   { href: '/safety', label: 'Safety' },
 ];
@@ -15,6 +16,7 @@ export async function SiteHeader() {
   const user = await getCurrentUser();
   const roleLinks = [
     hasRole(user, 'reviewer') && { href: '/logbook', label: 'Logbook' },
+    hasRole(user, 'reviewer') && { href: '/write', label: 'Write' },
     hasRole(user, 'editor') && { href: '/desk', label: 'Review desk' },
     hasRole(user, 'admin') && { href: '/admin/users', label: 'Admin' },
   ].filter((l): l is { href: string; label: string } => Boolean(l));

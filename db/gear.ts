@@ -33,13 +33,12 @@ import {
   type RecordState,
   type Role,
 } from './schema';
-import { AppError } from '@/lib/http/errors';
+import { AppError, zodFieldErrors } from '@/lib/http/errors';
 import { hasRole } from '@/lib/auth/roles';
 import { airlineBand, isSpecKey, SPECS, valueRatios, type AirlineBand, type Category, type Chemistry, type Money, type SpecKey, type Specs, type ValueRatio } from '@/lib/measure';
 import { CATEGORY_DEFS, isLithium } from '@/lib/gear/categories';
 import { formatMoney, formatSpec } from '@/lib/gear/format';
 import { claimRows, gearInputSchema, gearPatchSchema, type ClaimRow, type GearData } from '@/lib/gear/schemas';
-import { zodFieldErrors } from '@/lib/http/api';
 
 export interface Actor {
   id: string;

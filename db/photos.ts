@@ -9,7 +9,7 @@ import { removeVariants } from '../lib/photos/storage';
 
 /*
  * Photos of gear items: data access plus the visibility rule they depend on.
- * Visibility (issue 4): approved items are public; other states only to the owner and editors/admins
+ * Visibility (issue 4): items with an approved version are public (also while an edit is pending); other states only to the owner and editors/admins
  * (404 for everyone else). Changing photos needs the owner or an editor (403 when visible but not allowed);
  * an author may not change an item while it is in review (409), as for the item itself.
  */
@@ -25,19 +25,21 @@ export interface PhotoItem {
   name: string;
   ownerId: string;
   status: RecordState;
+  /** Set once an editor has approved a version: the item (and its photos) are public from then on. */
+  approvedAt: Date | null;
 }
 
 export type Photo = typeof photos.$inferSelect;
 
-export function canViewItem(item: Pick<PhotoItem, 'status' | 'ownerId'>, viewer: PhotoActor | null): boolean {
-  if (item.status === 'approved') return true;
+export function canViewItem(item: Pick<PhotoItem, 'approvedAt' | 'ownerId'>, viewer: PhotoActor | null): boolean {
+  if (item.approvedAt !== null) return true;
   return !!viewer && (viewer.id === item.ownerId || hasRole(viewer, 'editor'));
 }
 
 /** The item behind a slug if the viewer may see it; 404 otherwise (also when it does not exist). */
 export function findItemForViewer(db: Db, slug: string, viewer: PhotoActor | null): PhotoItem {
   const item = db
-    .select({ id: gearItems.id, slug: gearItems.slug, name: gearItems.name, ownerId: gearItems.ownerId, status: gearItems.status })
+    .select({ id: gearItems.id, slug: gearItems.slug, name: gearItems.name, ownerId: gearItems.ownerId, status: gearItems.status, approvedAt: gearItems.approvedAt })
     .from(gearItems)
     .where(eq(gearItems.slug, slug))
     .get();
@@ -155,9 +157,9 @@ export async function deleteItemPhotos(db: Db, gearItemId: string, uploadsDir: s
 }
 
 /** Who may fetch a stored key: the items whose photos use it (normally one). */
-export function itemsUsingStorageKey(db: Db, storageKey: string): Pick<PhotoItem, 'status' | 'ownerId'>[] {
+export function itemsUsingStorageKey(db: Db, storageKey: string): Pick<PhotoItem, 'approvedAt' | 'ownerId'>[] {
   return db
-    .select({ status: gearItems.status, ownerId: gearItems.ownerId })
+    .select({ approvedAt: gearItems.approvedAt, ownerId: gearItems.ownerId })
     .from(photos)
     .innerJoin(gearItems, eq(photos.gearItemId, gearItems.id))
     .where(eq(photos.storageKey, storageKey))

@@ -15,7 +15,8 @@ export function startServer(): Promise<void> {
         await seedDemo(db);
         console.log('[trailbench] demo data loaded into the empty database');
       }
-      await (await import('@/db/seed/photos')).seedDemoPhotos(db, (await import('@/lib/photos/config')).uploadsDir());
+      const { finishDemo } = await import('@/db/seed/finish');
+      await finishDemo(db, (await import('@/lib/photos/config')).uploadsDir());
     }
     if (!process.env.SMTP_URL) {
       const capture = await startCaptureServer(db, Number(process.env.CAPTURE_SMTP_PORT ?? 0));

@@ -6,6 +6,8 @@
  */
 import { openDatabase } from '../db/connection';
 import { DEMO_ACCOUNTS, seedDemo } from '../db/seed';
+import { finishDemo } from '../db/seed/finish';
+import { uploadsDir } from '../lib/photos/config';
 
 async function main(): Promise<number> {
   if (process.env.TRAILBENCH_DEMO !== '1') {
@@ -19,6 +21,8 @@ async function main(): Promise<number> {
   const db = openDatabase(file);
   try {
     const { created, inserted } = await seedDemo(db);
+    const finished = await finishDemo(db, uploadsDir());
+    console.log(`Kit budgets: ${finished.kits} kits set; stored ratios for ${finished.ratios} items; ${finished.photos} demo photos drawn.`);
     if (!created) {
       console.log(`Demo data already present in ${file}; nothing to add.`);
     } else {

@@ -1,17 +1,9 @@
 import 'server-only';
 import { NextResponse } from 'next/server';
 import { z } from 'zod';
-import { AppError, errorBody } from './errors';
+import { AppError, errorBody, zodFieldErrors } from './errors';
 
-/** Field errors keyed by dotted path, the shape used by forms, actions and the API alike. */
-export function zodFieldErrors(error: z.ZodError): Record<string, string[]> {
-  const fields: Record<string, string[]> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '_';
-    (fields[key] ??= []).push(issue.message);
-  }
-  return fields;
-}
+export { zodFieldErrors };
 
 export function errorResponse(error: unknown): NextResponse {
   if (error instanceof AppError) {

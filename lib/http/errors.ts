@@ -1,3 +1,5 @@
+import type { z } from 'zod';
+
 /**
  * One status table for the whole app (pages, route handlers and actions), checked in this order:
  * 401 account needed · 404 caller may not see the target · 403 visible but not allowed · 409 state conflict ·
@@ -42,4 +44,14 @@ export interface ErrorBody {
 
 export function errorBody(code: string, message: string, fields?: FieldErrors): ErrorBody {
   return { error: fields ? { code, message, fields } : { code, message } };
+}
+
+/** Field errors keyed by dotted path, the shape used by forms, actions and the API alike. */
+export function zodFieldErrors(error: z.ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_';
+    (fields[key] ??= []).push(issue.message);
+  }
+  return fields;
 }

@@ -105,7 +105,7 @@ async function readUploadForm(request: Request): Promise<{ file: File; alt: stri
 export const handlePhotoList = apiHandler(async (db: Db, viewer: PhotoActor | null, slug: string) => {
   const item = findItemForViewer(db, slug, viewer);
   const list = listPhotos(db, item.id).map(photoJson);
-  return NextResponse.json({ photos: list }, { headers: { 'Cache-Control': item.status === 'approved' ? 'no-cache' : 'private, no-store' } });
+  return NextResponse.json({ photos: list }, { headers: { 'Cache-Control': item.approvedAt !== null ? 'no-cache' : 'private, no-store' } });
 });
 
 /** POST /api/v1/gear/{slug}/photos — multipart field `file` (and optional `alt`); 201 with the stored photo. */

@@ -29,7 +29,7 @@ export async function handleVariantRequest(
   if (!parsed) return notFound();
   const items = itemsUsingStorageKey(db, parsed.storageKey);
   if (items.length === 0) return notFound();
-  const isPublic = items.some((item) => item.status === 'approved');
+  const isPublic = items.some((item) => item.approvedAt !== null);
   if (!isPublic) {
     const viewer = await getViewer();
     if (!items.some((item) => canViewItem(item, viewer))) return notFound();

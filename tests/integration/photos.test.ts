@@ -33,7 +33,9 @@ const reader: PhotoActor = { id: 'u-reader', role: 'reader' };
 
 function addItem(slug: string, status: RecordState, ownerId = owner.id): string {
   const id = `item-${slug}`;
-  db.insert(gearItems).values({ id, slug, ownerId, name: `Test ${slug}`, maker: 'Testmaker', category: 'light', status }).run();
+  // An item is public once a version has been approved (approvedAt set), as in the gear service.
+  const approvedAt = status === 'approved' ? new Date() : null;
+  db.insert(gearItems).values({ id, slug, ownerId, name: `Test ${slug}`, maker: 'Testmaker', category: 'light', status, approvedAt }).run();
   return id;
 }
 

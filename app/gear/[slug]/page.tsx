@@ -6,7 +6,10 @@ import { ReviewActions } from '@/components/gear/review-actions';
 import { SpecsTable } from '@/components/gear/specs-table';
 import { StatusBadge, STATE_LABELS } from '@/components/gear/status-badge';
 import { getDb } from '@/db';
-import { getGearView, specHistory } from '@/db/gear';
+import { canEditGear, getGearView, specHistory } from '@/db/gear';
+import { countPhotos } from '@/db/photos';
+import { PhotoGallery } from '@/components/photos/photo-gallery';
+import { PhotoUploader } from '@/components/photos/photo-uploader';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { CATEGORY_DEFS, CHEMISTRY_LABELS, kindLabel } from '@/lib/gear/categories';
 import { formatMoney, formatQuantity } from '@/lib/gear/format';
@@ -43,6 +46,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
   const lastComment = view.events.find((e) => e.toState === 'changes-requested')?.comment;
   const history = view.insider && viewer ? specHistory(getDb(), slug, viewer) : [];
   const figure = (key: string, value: number | null) => (value === null ? '—' : isSpecKey(key) ? formatSpec(key, value) : String(value));
+  const mayManagePhotos = canEditGear(viewer, item);
   const CONTEXT = { edit: 'draft edit', pending: 'pending change', approval: 'approved' } as const;
 
   return (
@@ -167,7 +171,13 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
         </section>
       ) : null}
 
-      {/* Photos gallery: wired in by the photos work (issue 4). */}
+      <section aria-labelledby="photos-heading" className="space-y-4">
+        <h2 id="photos-heading" className="text-xl font-semibold">
+          Photos
+        </h2>
+        <PhotoGallery gearItemId={item.id} slug={item.slug} itemName={version.name} manage={mayManagePhotos} />
+        {mayManagePhotos ? <PhotoUploader slug={item.slug} photoCount={countPhotos(getDb(), item.id)} /> : null}
+      </section>
 
       <CategoryCautions cautions={def.cautions} />
 
