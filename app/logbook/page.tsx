@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { LogbookFieldTests } from '@/components/field-tests/logbook-field-tests';
 import { StatusBadge } from '@/components/gear/status-badge';
 import { getDb } from '@/db';
 import { listGearInReview, listLogbookGear, type LogbookGearRow } from '@/db/gear';
@@ -83,6 +84,12 @@ export default async function LogbookPage() {
           <p className="rounded-lg border border-dashed border-rule p-6 text-slate">No gear items yet. Record the first one with its claimed specs.</p>
         )}
       </section>
+      <div className="mt-10">
+        <LogbookFieldTests />
+      </div>
+      <p className="mt-10 text-sm text-slate">
+        Reviews are written under <Link href="/write" className="font-semibold text-lichen underline">Write</Link>.
+      </p>
       {waiting.length ? (
         <section className="mt-10" aria-labelledby="waiting">
           <h2 id="waiting" className="text-xl font-bold">
