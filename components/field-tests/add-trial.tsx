@@ -71,7 +71,7 @@ export function AddTrial({ testId, kind, items, maxBytes }: { testId: string; ki
       </div>
       {info.input !== 'typed' ? (
         <div role="radiogroup" aria-label="Readings from" className="flex flex-wrap gap-4 text-sm">
-          <label className="flex items-center gap-2"><input type="radio" checked={source === 'csv'} onChange={() => setSource('csv')} /> Logger file (CSV)</label>
+          <label className="flex items-center gap-2"><input type="radio" checked={source === 'csv'} onChange={() => setSource('csv')} /> Upload a logger file</label>
           <label className="flex items-center gap-2"><input type="radio" checked={source === 'typed-readings'} onChange={() => setSource('typed-readings')} /> Type in readings</label>
           {info.input === 'either' ? <label className="flex items-center gap-2"><input type="radio" checked={source === 'typed-values'} onChange={() => setSource('typed-values')} /> Type in figures</label> : null}
         </div>
@@ -89,7 +89,7 @@ function ResultsPreview({ kind, samples, item }: { kind: FieldTestKind; samples:
   return (
     <div className="space-y-2">
       <TrialChart title={`${item.name}: readings to save`} samples={samples} chart={a.chart} />
-      {a.figures.length ? <p className="figure text-sm font-semibold" data-testid="trial-preview-figures">{a.figures.map((f) => `${f.label}: ${formatFigure(f.value, f.unit)}`).join(' · ')}</p> : null}
+      {a.figures.length ? <p className="figure text-sm font-semibold" data-testid="trial-preview-figures">{a.figures.map((f) => `${f.label}: ${formatFigure(f.value, f.unit, f.key)}`).join(' · ')}</p> : null}
       {a.notes.map((n) => <p key={n} className="text-sm text-amber">{n}</p>)}
     </div>
   );

@@ -3,7 +3,7 @@ import type { FieldTestView } from '@/db/field-tests-view';
 import { KINDS, SKY_LABELS, type Sky } from '@/lib/field-tests/kinds';
 import { formatNumber } from '@/lib/gear/format';
 import { gearPath } from '@/lib/gear/paths';
-import { formatFigure, formatSummary, formatTestedAt, methodHref } from './format';
+import { formatBytes, formatFigure, formatSummary, formatTestedAt, methodHref } from './format';
 import { TrialChart } from './trial-chart';
 
 function conditionsOf(view: FieldTestView): string {
@@ -125,7 +125,7 @@ export function FieldTestTrials({ view, children }: { view: FieldTestView; child
             {t.rows > 0 ? (
               <p className="figure text-xs text-slate">
                 {t.rows.toLocaleString('en-US')} readings{t.seriesMeta?.fileName ? ` from ${t.seriesMeta.fileName}` : t.seriesMeta?.source === 'typed' ? ', typed in' : ''}
-                {t.switchedOnAt ? `; switched on ${formatTestedAt(t.switchedOnAt)}` : ''}; stored in {formatNumber(t.seriesBytes / 1024)} KB.
+                {t.switchedOnAt ? `; switched on ${formatTestedAt(t.switchedOnAt)}` : ''}; stored in {formatBytes(t.seriesBytes)}.
               </p>
             ) : null}
             {t.notes.length ? (
@@ -140,7 +140,7 @@ export function FieldTestTrials({ view, children }: { view: FieldTestView; child
                 <TrialChart title={title} samples={t.chartSamples} chart={t.analysis.chart} conditions={conditions} />
                 {t.analysis.figures.length ? (
                   <p className="figure text-sm" data-testid="ft-trial-figures">
-                    {t.analysis.figures.map((f) => `${f.label}: ${formatFigure(f.value, f.unit)}`).join(' · ')}
+                    {t.analysis.figures.map((f) => `${f.label}: ${formatFigure(f.value, f.unit, f.key)}`).join(' · ')}
                   </p>
                 ) : null}
                 {t.analysis.notes.map((n) => (
