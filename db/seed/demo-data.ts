@@ -14,7 +14,7 @@
  *   powerDraw always names its mode ('high', 'receive', 'transmit', 'running' …).
  * - Ids and slugs are stable: the seed inserts only what is missing, so it can run any number of times.
  */
-import { energyWh, lightRuntime, solarOutput, summarize, type Category, type SpecKey } from '../../lib/measure';
+import { energyWh, lightRuntime, solarOutput, summarize, type Category, type Chemistry, type SpecKey } from '../../lib/measure';
 import type { RecordState, ReviewState, Role } from '../schema';
 import { dischargeLog, lightFadeLog, piecewiseLog, solarLog, type SeriesRow } from './series';
 
@@ -92,6 +92,8 @@ export interface DemoGearItem {
   approvedAt: Date | null;
   claimSource: ClaimSource;
   claims: DemoClaim[];
+  /** Cell chemistry of banks and batteries (the airline band and the default depth of discharge depend on it). */
+  chemistry?: Chemistry;
 }
 
 /** A fixed instant: the demo's dates are written in UTC. */
@@ -273,6 +275,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-20T13:00',
     approved: '2026-08-24T10:00',
+    chemistry: 'li-ion',
     claimSource: 'packaging',
     claims: [c('mass', 360), c('ratedEnergy', 72), c('continuousPower', 45)],
   }),
@@ -291,6 +294,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-20T13:20',
     approved: '2026-08-24T10:05',
+    chemistry: 'li-ion',
     claimSource: 'packaging',
     claims: [c('mass', 195), c('ratedEnergy', 37), c('continuousPower', 20)],
   }),
@@ -309,6 +313,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-20T13:40',
     approved: '2026-08-24T10:10',
+    chemistry: 'li-ion',
     claimSource: 'makers-site',
     claims: [c('mass', 545), c('ratedEnergy', 99.9), c('continuousPower', 65)],
   }),
@@ -327,6 +332,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-20T14:00',
     approved: '2026-08-24T10:15',
+    chemistry: 'li-ion',
     claimSource: 'packaging',
     claims: [c('mass', 128), c('ratedEnergy', 18.5), c('continuousPower', 12), c('luminousFlux', 100, 'torch')],
   }),
@@ -346,6 +352,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-21T09:00',
     approved: '2026-08-25T14:00',
+    chemistry: 'lifepo4',
     claimSource: 'manual',
     claims: [c('mass', 2500), c('ratedEnergy', 256), c('supplyVoltage', 12.8), c('continuousPower', 256)],
   }),
@@ -364,6 +371,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     status: 'approved',
     created: '2026-08-21T09:20',
     approved: '2026-08-25T14:05',
+    chemistry: 'lifepo4',
     claimSource: 'makers-site',
     claims: [c('mass', 5900), c('ratedEnergy', 640), c('supplyVoltage', 12.8), c('continuousPower', 640)],
   }),
@@ -381,6 +389,7 @@ export const DEMO_GEAR: readonly DemoGearItem[] = [
     notes: 'Absorbent glass mat lead-acid, 12 V, 35 Ah (420 Wh) at the 20-hour rate. The school’s old base-camp battery, entered for comparison. Draft: the label photo is still missing.',
     status: 'draft',
     created: '2026-10-18T16:00',
+    chemistry: 'agm',
     claimSource: 'packaging',
     claims: [c('mass', 10400), c('ratedEnergy', 420), c('supplyVoltage', 12), c('continuousPower', 210)],
   }),

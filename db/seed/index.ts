@@ -188,6 +188,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
           priceCurrency: item.priceCurrency,
           pricePaidOn: item.pricePaidOn,
           notes: item.notes,
+          chemistry: item.chemistry ?? null,
           status: item.status,
           approvedAt: item.approvedAt,
           createdAt: item.createdAt,
