@@ -149,11 +149,16 @@ export async function processAndStorePhoto(buffer: Buffer, options: { uploadsDir
  * Renders an SVG that the application itself wrote (the demo seed's drawings) to PNG. The SVG loader is
  * unblocked only for this call; uploads never reach sharp as SVG, because the byte check refuses them first.
  */
+let trustedSvgRenders = 0;
+
 export async function renderTrustedSvg(svg: string): Promise<Buffer> {
-  sharp.unblock({ operation: ['VipsForeignLoadSvgBuffer'] });
+  // The allowlist is process-wide and renders may overlap: apply it first, and keep the SVG loader open until the
+  // last overlapping render ends (a plain unblock/block pair let one render close the loader under another).
+  applyDecoderAllowlist();
+  if (trustedSvgRenders++ === 0) sharp.unblock({ operation: ['VipsForeignLoadSvgBuffer'] });
   try {
     return await sharp(Buffer.from(svg), { limitInputPixels: MAX_INPUT_PIXELS }).png().toBuffer();
   } finally {
-    sharp.block({ operation: ['VipsForeignLoadSvgBuffer'] });
+    if (--trustedSvgRenders === 0) sharp.block({ operation: ['VipsForeignLoadSvgBuffer'] });
   }
 }
