@@ -1,4 +1,5 @@
 import 'server-only';
+import { readBodyCapped } from '@/lib/http/body';
 import { NextResponse } from 'next/server';
 import type { Db } from '@/db/connection';
 import {
@@ -54,39 +55,13 @@ function requireActor(user: PhotoActor | null): PhotoActor {
   return user;
 }
 
-/** Reads the body up to `limit` bytes; 413 as soon as it is exceeded, whatever Content-Length said. */
-async function readBodyCapped(request: Request, limit: number): Promise<Uint8Array> {
-  const declared = request.headers.get('content-length');
-  if (declared !== null && Number(declared) > limit) throw tooLarge();
-  if (!request.body) return new Uint8Array(0);
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => {});
-      throw tooLarge();
-    }
-    chunks.push(value);
-  }
-  const body = new Uint8Array(total);
-  let offset = 0;
-  for (const chunk of chunks) {
-    body.set(chunk, offset);
-    offset += chunk.byteLength;
-  }
-  return body;
-}
 
 async function readUploadForm(request: Request): Promise<{ file: File; alt: string }> {
   const type = request.headers.get('content-type') ?? '';
   if (!/^multipart\/form-data\s*;\s*boundary=/i.test(type)) {
     throw new AppError('unsupported_media_type', 'Send the photo as multipart/form-data with the field "file".');
   }
-  const body = await readBodyCapped(request, MAX_BODY_BYTES);
+  const body = await readBodyCapped(request, MAX_BODY_BYTES, tooLarge);
   let form: FormData;
   try {
     form = await new Response(body as BodyInit, { headers: { 'content-type': type } }).formData();

@@ -1,4 +1,5 @@
 import 'server-only';
+import { readBodyCapped } from '@/lib/http/body';
 import { NextResponse } from 'next/server';
 import type { Db } from '@/db/connection';
 import type { Actor } from '@/db/gear';
@@ -41,32 +42,6 @@ function formatMb(bytes: number): string {
   return `${Number((bytes / MB).toFixed(1))} MB`;
 }
 
-/** Reads the body up to `limit` bytes: 413 from Content-Length before reading, and again as soon as the real size passes it. */
-async function readBodyCapped(request: Request, limit: number, fileLimit: number): Promise<Uint8Array> {
-  const declared = request.headers.get('content-length');
-  if (declared !== null && Number(declared) > limit) throw tooLarge(fileLimit);
-  if (!request.body) return new Uint8Array(0);
-  const reader = request.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let total = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    total += value.byteLength;
-    if (total > limit) {
-      await reader.cancel().catch(() => {});
-      throw tooLarge(fileLimit);
-    }
-    chunks.push(value);
-  }
-  const body = new Uint8Array(total);
-  let offset = 0;
-  for (const c of chunks) {
-    body.set(c, offset);
-    offset += c.byteLength;
-  }
-  return body;
-}
 
 /** A refused file in the shared error format: 415 for binary, 413 for too many rows, else 422 with row messages. */
 function readingsRefusal(error: ReadingsError): AppError {
@@ -180,7 +155,7 @@ export const handleReadingsUpload = apiHandler(async (db: Db, user: Actor | null
   if (!/^multipart\/form-data\s*;\s*boundary=/i.test(type)) {
     throw new AppError('unsupported_media_type', 'Send a logger file as multipart/form-data with the field “file”, or typed-in readings as application/json.');
   }
-  const body = await readBodyCapped(request, fileLimit + FORM_OVERHEAD, fileLimit);
+  const body = await readBodyCapped(request, fileLimit + FORM_OVERHEAD, () => tooLarge(fileLimit));
   let form: FormData;
   try {
     form = await new Response(body as BodyInit, { headers: { 'content-type': type } }).formData();
