@@ -60,7 +60,8 @@ function decimalPlaces(values: Float64Array): number | null {
     for (let i = 0; i < values.length; i++) {
       const v = values[i]!;
       const n = Math.round(v * p);
-      if (!(Math.abs(n) <= MAX_SCALED) || !Object.is(n / p, v)) {
+      // -0 scales to an integer that decodes as +0, so a column holding it stays raw.
+      if (!(Math.abs(n) <= MAX_SCALED) || !Object.is(n / p, v) || Object.is(v, -0)) {
         ok = false;
         break;
       }

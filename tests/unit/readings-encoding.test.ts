@@ -101,3 +101,13 @@ describe('downsample (min/max per bucket)', () => {
     expect(out).toContain(pts[54_321]);
   });
 });
+
+describe('encodeSeries edge cases found by the property test', () => {
+  // fast-check counterexample (seed -901745983): a column of zeros holding one -0 came back as +0.
+  it('keeps -0 in a column of whole numbers', () => {
+    const samples = [0, 1, 2, 3, 4].map((t, i) => ({ t, volts: i === 1 ? -0 : 0 }));
+    const decoded = decodeSeries(encodeSeries(samples));
+    expect(decoded.ok).toBe(true);
+    if (decoded.ok) expect(Object.is(decoded.samples[1]!.volts, -0)).toBe(true);
+  });
+});
