@@ -12,6 +12,7 @@ export default defineConfig({
   test: {
     include: ['tests/unit/**/*.test.ts', 'tests/integration/**/*.test.ts'],
     environment: 'node',
+    setupFiles: ['tests/support/fast-check-seed.ts'],
     pool: 'forks',
     server: { deps: { inline: ['next-auth', '@auth/core'] } },
     testTimeout: 20_000,
