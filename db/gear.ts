@@ -479,6 +479,11 @@ function transition(
 const requireEditor = (actor: Actor) => () => {
   if (!hasRole(actor, 'editor')) throw new AppError('forbidden', 'Only editors and admins review gear items.');
 };
+/** Editors review other people's work: an author never approves or sends back their own item, even as an editor. */
+const requireOtherEditor = (actor: Actor) => (item: GearItem) => {
+  requireEditor(actor)();
+  if (item.ownerId === actor.id) throw new AppError('forbidden', 'Another editor must review this item: authors never approve their own work.');
+};
 const requireEditRights = (actor: Actor) => (item: GearItem) => {
   if (!canEditGear(actor, item)) throw new AppError('forbidden', 'Only the author or an editor may do this.');
 };
@@ -513,7 +518,7 @@ export function withdrawGear(db: Db, actor: Actor, slug: string, now = new Date(
 
 /** An editor returns an item in review with a comment. */
 export function sendBackGear(db: Db, actor: Actor, slug: string, comment: string, now = new Date()) {
-  return transition(db, slug, actor, requireEditor(actor), ['in-review'], 'changes-requested', 'Only an item in review can be sent back.', undefined, comment, now);
+  return transition(db, slug, actor, requireOtherEditor(actor), ['in-review'], 'changes-requested', 'Only an item in review can be sent back.', undefined, comment, now);
 }
 
 /**
@@ -525,7 +530,7 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
     db,
     slug,
     actor,
-    requireEditor(actor),
+    requireOtherEditor(actor),
     ['in-review'],
     'approved',
     'Only an item in review can be approved.',
@@ -679,7 +684,7 @@ export function getGearView(db: Db, slug: string, viewer: Actor | null): GearVie
       canEdit: editable && item.status !== 'in-review',
       canSubmit: editable && (item.status === 'draft' || item.status === 'changes-requested'),
       canWithdraw: editable && item.status === 'in-review',
-      canReview: !!viewer && hasRole(viewer, 'editor') && item.status === 'in-review',
+      canReview: !!viewer && hasRole(viewer, 'editor') && viewer.id !== item.ownerId && item.status === 'in-review',
     },
     events,
     notes,

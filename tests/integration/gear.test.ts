@@ -77,6 +77,19 @@ beforeEach(() => {
   state.user = null;
 });
 
+describe('gear review by another editor (issue 6: authors never approve their own work)', () => {
+  it('refuses an editor approving or sending back their own item, and lets another editor approve it', () => {
+    const own = createGear(state.db, users.editor, lantern());
+    submitGear(state.db, users.editor, own.slug);
+    const before = counts();
+    expect(() => approveGear(state.db, users.editor, own.slug)).toThrow(expect.objectContaining({ code: 'forbidden' }));
+    expect(() => sendBackGear(state.db, users.editor, own.slug, 'Fix it')).toThrow(expect.objectContaining({ code: 'forbidden' }));
+    expect(counts()).toEqual(before);
+    const admin = createUser(state.db, { email: 'admin@example.org', name: 'admin', passwordHash: null, role: 'admin' });
+    expect(approveGear(state.db, { id: admin.id, role: admin.role }, own.slug).status).toBe('approved');
+  });
+});
+
 describe('gear service', () => {
   it('stores typed units in canonical units and logs each claimed spec', () => {
     const { slug } = createGear(state.db, users.author, lantern());
