@@ -115,19 +115,28 @@ function liveClaims(db: Q, itemId: string): ClaimRow[] {
     .map((r) => ({ key: r.key as SpecKey, mode: r.mode, value: r.value, source: (r.claimSource ?? 'packaging') as ClaimRow['source'] }));
 }
 
+/** The columns of an item that an author edits (shared by the live row, a pending change and every write). */
+type EditableColumns = Pick<GearItem, 'name' | 'maker' | 'kind' | 'modelYear' | 'priceMinor' | 'priceCurrency' | 'pricePaidOn' | 'notes' | 'chemistry' | 'waterRating'>;
+
+function editableColumns(source: EditableColumns): EditableColumns {
+  return {
+    name: source.name,
+    maker: source.maker,
+    kind: source.kind,
+    modelYear: source.modelYear,
+    priceMinor: source.priceMinor,
+    priceCurrency: source.priceCurrency,
+    pricePaidOn: source.pricePaidOn,
+    notes: source.notes,
+    chemistry: source.chemistry,
+    waterRating: source.waterRating,
+  };
+}
+
 function liveCopy(db: Q, item: GearItem): WorkingCopy {
   return {
     category: item.category as Category,
-    name: item.name,
-    maker: item.maker,
-    kind: item.kind,
-    modelYear: item.modelYear,
-    priceMinor: item.priceMinor,
-    priceCurrency: item.priceCurrency,
-    pricePaidOn: item.pricePaidOn,
-    notes: item.notes,
-    chemistry: item.chemistry,
-    waterRating: item.waterRating,
+    ...editableColumns(item),
     changeNote: '',
     claims: liveClaims(db, item.id),
   };
@@ -366,17 +375,8 @@ export function createGear(db: Db, actor: Actor, raw: unknown, now = new Date())
           id,
           slug,
           ownerId: actor.id,
-          name: data.name,
-          maker: data.maker,
           category: data.category,
-          kind: data.kind,
-          modelYear: data.modelYear,
-          priceMinor: data.price?.amountMinor ?? null,
-          priceCurrency: data.price?.currency ?? null,
-          pricePaidOn: data.pricePaidOn,
-          notes: data.notes,
-          chemistry: data.chemistry,
-          waterRating: data.waterRating,
+          ...editableColumns(dataToPending(data)),
           status: 'draft',
           createdAt: now,
           updatedAt: now,
@@ -414,16 +414,7 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
       if (!isPublicGear(item)) {
         tx.update(gearItems)
           .set({
-            name: next.name,
-            maker: next.maker,
-            kind: next.kind,
-            modelYear: next.modelYear,
-            priceMinor: next.priceMinor,
-            priceCurrency: next.priceCurrency,
-            pricePaidOn: next.pricePaidOn,
-            notes: next.notes,
-            chemistry: next.chemistry,
-            waterRating: next.waterRating,
+            ...editableColumns(next),
             updatedAt: now,
           })
           .where(eq(gearItems.id, item.id))
@@ -541,18 +532,7 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
         const before = liveCopy(tx, item);
         const diffs = diffClaims(before.claims, typedClaims(pending.claims));
         tx.update(gearItems)
-          .set({
-            name: pending.name,
-            maker: pending.maker,
-            kind: pending.kind,
-            modelYear: pending.modelYear,
-            priceMinor: pending.priceMinor,
-            priceCurrency: pending.priceCurrency,
-            pricePaidOn: pending.pricePaidOn,
-            notes: pending.notes,
-            chemistry: pending.chemistry,
-            waterRating: pending.waterRating,
-          })
+          .set(editableColumns(pending))
           .where(eq(gearItems.id, item.id))
           .run();
         writeLiveClaims(tx, item.id, typedClaims(pending.claims), at);
