@@ -556,3 +556,31 @@ export const notificationSettings = sqliteTable('notification_settings', {
     .notNull()
     .default(sql`(unixepoch('subsec') * 1000)`),
 });
+
+export const API_TOKEN_SCOPES = ['read', 'write'] as const;
+export type ApiTokenScope = (typeof API_TOKEN_SCOPES)[number];
+
+/**
+ * Personal API tokens (issue 7). Only a SHA-256 hash of the secret is stored; `prefix` is a short,
+ * non-secret beginning of the token shown in the account page so its owner can tell tokens apart.
+ * A token acts as its owner's current role, re-read on every request.
+ */
+export const apiTokens = sqliteTable(
+  'api_tokens',
+  {
+    id: text('id').primaryKey(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    scope: text('scope', { enum: API_TOKEN_SCOPES }).notNull(),
+    tokenHash: text('token_hash').notNull(),
+    prefix: text('prefix').notNull(),
+    createdAt: createdAt(),
+    lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
+    revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+  },
+  (t) => [uniqueIndex('api_tokens_token_hash').on(t.tokenHash), index('api_tokens_user').on(t.userId)],
+);
+
+export type ApiToken = typeof apiTokens.$inferSelect;
