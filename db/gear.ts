@@ -38,6 +38,7 @@ import { hasRole } from '@/lib/auth/roles';
 import { airlineBand, isSpecKey, SPECS, valueRatios, type AirlineBand, type Category, type Chemistry, type Money, type SpecKey, type Specs, type ValueRatio } from '@/lib/measure';
 import { CATEGORY_DEFS, isLithium } from '@/lib/gear/categories';
 import { formatMoney, formatSpec } from '@/lib/gear/format';
+import { decide, type WorkflowAction } from '@/lib/workflow/transitions';
 import { claimRows, gearInputSchema, gearPatchSchema, type ClaimRow, type GearData } from '@/lib/gear/schemas';
 
 export interface Actor {
@@ -441,14 +442,30 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
   );
 }
 
+/** The workflow decision (lib/workflow, kind `record`) for one action on an item, as an AppError when refused. */
+function decideGear(item: GearItem, actor: Actor, action: GearAction, comment = '') {
+  const decision = decide({ kind: 'record', state: item.status, action, actor, authorId: item.ownerId, comment });
+  if (!decision.ok) {
+    throw new AppError(decision.code, decision.message, decision.code === 'invalid' ? { fields: { comment: [decision.message] } } : {});
+  }
+  return decision;
+}
+
+/** Whether `viewer` may take `action` on the item now (for showing or hiding its button). */
+function mayAct(item: GearItem, viewer: Actor | null, action: GearAction): boolean {
+  if (!viewer) return false;
+  // The comment is asked for in the form: the button shows before it is typed.
+  return decide({ kind: 'record', state: item.status, action, actor: viewer, authorId: item.ownerId, comment: 'x' }).ok;
+}
+
+export type GearAction = Extract<WorkflowAction, 'submit' | 'withdraw' | 'request-changes' | 'approve'>;
+
+/** 404 when not visible, then the workflow's 403/409/422, then `apply` and the event — in one immediate transaction. */
 function transition(
   db: Db,
   slug: string,
   actor: Actor,
-  check: (item: GearItem) => void,
-  from: readonly RecordState[],
-  to: RecordState,
-  conflict: string,
+  action: GearAction,
   apply?: (tx: Tx, item: GearItem, now: Date) => void,
   comment = '',
   now = new Date(),
@@ -456,39 +473,24 @@ function transition(
   return db.transaction(
     (tx) => {
       const item = findVisibleGear(tx, slug, actor);
-      check(item);
-      if (!from.includes(item.status)) throw new AppError('conflict', conflict);
+      const decision = decideGear(item, actor, action, comment);
+      const to = decision.to as RecordState;
       apply?.(tx, item, now);
       tx.update(gearItems).set({ status: to, updatedAt: now }).where(eq(gearItems.id, item.id)).run();
-      event(tx, item.id, item.status, to, actor.id, now, comment);
+      event(tx, item.id, item.status, to, actor.id, now, decision.comment);
       return { slug: item.slug, status: to };
     },
     { behavior: 'immediate' },
   );
 }
 
-const requireEditor = (actor: Actor) => () => {
-  if (!hasRole(actor, 'editor')) throw new AppError('forbidden', 'Only editors and admins review gear items.');
-};
-/** Editors review other people's work: an author never approves or sends back their own item, even as an editor. */
-const requireOtherEditor = (actor: Actor) => (item: GearItem) => {
-  requireEditor(actor)();
-  if (item.ownerId === actor.id) throw new AppError('forbidden', 'Another editor must review this item: authors never approve their own work.');
-};
-const requireEditRights = (actor: Actor) => (item: GearItem) => {
-  if (!canEditGear(actor, item)) throw new AppError('forbidden', 'Only the author or an editor may do this.');
-};
-
-/** Author (or editor) submits a draft or a returned item for review; every photo needs its alt text first (409). */
+/** The author submits a draft or a returned item for review; every photo needs its alt text first (409). */
 export function submitGear(db: Db, actor: Actor, slug: string, now = new Date()) {
   return transition(
     db,
     slug,
     actor,
-    requireEditRights(actor),
-    ['draft', 'changes-requested'],
-    'in-review',
-    'Only a draft or an item sent back can be submitted.',
+    'submit',
     (tx, item) => {
       const missing = tx
         .select({ id: photos.id })
@@ -504,12 +506,12 @@ export function submitGear(db: Db, actor: Actor, slug: string, now = new Date())
 
 /** The author takes a submitted item back before an editor acts. */
 export function withdrawGear(db: Db, actor: Actor, slug: string, now = new Date()) {
-  return transition(db, slug, actor, requireEditRights(actor), ['in-review'], 'draft', 'Only an item in review can be withdrawn.', undefined, '', now);
+  return transition(db, slug, actor, 'withdraw', undefined, '', now);
 }
 
-/** An editor returns an item in review with a comment. */
+/** An editor other than the author returns an item in review with a comment. */
 export function sendBackGear(db: Db, actor: Actor, slug: string, comment: string, now = new Date()) {
-  return transition(db, slug, actor, requireOtherEditor(actor), ['in-review'], 'changes-requested', 'Only an item in review can be sent back.', undefined, comment, now);
+  return transition(db, slug, actor, 'request-changes', undefined, comment, now);
 }
 
 /**
@@ -521,10 +523,7 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
     db,
     slug,
     actor,
-    requireOtherEditor(actor),
-    ['in-review'],
-    'approved',
-    'Only an item in review can be approved.',
+    'approve',
     (tx, item, at) => {
       const pending = pendingOf(tx, item.id);
       let current = item;
@@ -662,9 +661,9 @@ export function getGearView(db: Db, slug: string, viewer: Actor | null): GearVie
     airline,
     permissions: {
       canEdit: editable && item.status !== 'in-review',
-      canSubmit: editable && (item.status === 'draft' || item.status === 'changes-requested'),
-      canWithdraw: editable && item.status === 'in-review',
-      canReview: !!viewer && hasRole(viewer, 'editor') && viewer.id !== item.ownerId && item.status === 'in-review',
+      canSubmit: mayAct(item, viewer, 'submit'),
+      canWithdraw: mayAct(item, viewer, 'withdraw'),
+      canReview: mayAct(item, viewer, 'approve'),
     },
     events,
     notes,

@@ -34,7 +34,7 @@ vi.mock('@/lib/auth/guard', async () => {
   };
 });
 
-const { approveGear, backfillGearRatios, createGear, findVisibleGear, getGearView, sendBackGear, storedRatios, submitGear, updateGear } = await import('@/db/gear');
+const { approveGear, backfillGearRatios, createGear, findVisibleGear, getGearView, sendBackGear, storedRatios, submitGear, updateGear, withdrawGear } = await import('@/db/gear');
 const { POST } = await import('@/app/api/v1/gear/route');
 const { PATCH } = await import('@/app/api/v1/gear/[slug]/route');
 const { createGearAction, updateGearAction } = await import('@/lib/gear/actions');
@@ -120,6 +120,24 @@ describe('gear service', () => {
     expect(() => updateGear(state.db, users.other, slug, { name: 'Taken over' })).toThrow(expect.objectContaining({ code: 'not_found' }));
     expect(() => submitGear(state.db, users.other, slug)).toThrow(expect.objectContaining({ code: 'not_found' }));
     expect(counts()).toEqual(before);
+  });
+
+  it('routes transitions through lib/workflow: only the author submits or withdraws, a send-back needs a comment, no send-back once public', () => {
+    const { slug } = createGear(state.db, users.author, lantern());
+    const before = counts();
+    // Issue 6, second table: submit and withdraw are the author's; an editor sees the draft but may not submit it.
+    expect(() => submitGear(state.db, users.editor, slug)).toThrow(expect.objectContaining({ code: 'forbidden' }));
+    expect(getGearView(state.db, slug, users.editor).permissions).toMatchObject({ canSubmit: false, canReview: false });
+    expect(getGearView(state.db, slug, users.author).permissions).toMatchObject({ canSubmit: true, canWithdraw: false });
+    submitGear(state.db, users.author, slug);
+    expect(() => withdrawGear(state.db, users.editor, slug)).toThrow(expect.objectContaining({ code: 'forbidden' }));
+    expect(() => sendBackGear(state.db, users.editor, slug, '   ')).toThrow(expect.objectContaining({ code: 'invalid' }));
+    expect(getGearView(state.db, slug, users.editor).permissions).toMatchObject({ canReview: true, canWithdraw: false });
+    expect(() => submitGear(state.db, users.author, slug)).toThrow(expect.objectContaining({ code: 'conflict' }));
+    approveGear(state.db, users.editor, slug);
+    expect(() => sendBackGear(state.db, users.editor, slug, 'Too late')).toThrow(expect.objectContaining({ code: 'conflict' }));
+    expect(() => approveGear(state.db, users.editor, slug)).toThrow(expect.objectContaining({ code: 'conflict' }));
+    expect(count(gearItems)).toBe(before[0]);
   });
 
   it('runs draft → in review → changes requested → in review → approved, locking edits in review', () => {
