@@ -584,3 +584,23 @@ export const apiTokens = sqliteTable(
 );
 
 export type ApiToken = typeof apiTokens.$inferSelect;
+
+/**
+ * "Where to buy" links of a review revision (issue 6, reader trust). They belong to the revision so a
+ * published revision's links never change: a correction copies them into its new draft, where the author
+ * may edit them, and they go public again only through the same review. URLs are https only (lib/reviews/buy-links.ts).
+ */
+export const reviewBuyLinks = sqliteTable(
+  'review_buy_links',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    revisionId: text('revision_id')
+      .notNull()
+      .references(() => reviewRevisions.id, { onDelete: 'cascade' }),
+    position: integer('position').notNull().default(0),
+    label: text('label').notNull(),
+    url: text('url').notNull(),
+    isAffiliate: integer('is_affiliate', { mode: 'boolean' }).notNull().default(false),
+  },
+  (t) => [index('review_buy_links_revision').on(t.revisionId, t.position)],
+);
