@@ -1,0 +1,66 @@
+/**
+ * The OpenAPI 3.1 document of /api/v1, built from the zod schemas the routes themselves parse with.
+ * Each area of the API lives in one file under ./paths and is listed once in API_AREAS (see registry.ts
+ * for how to add one). Served at /api/v1/openapi.json and rendered by the API guide page (/api-guide).
+ */
+import { OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
+import { createRegistry, type OpenAPIRegistry } from './registry';
+import { registerGearWrites } from './paths/gear';
+
+export type OpenApiDocument = ReturnType<OpenApiGeneratorV31['generateDocument']>;
+
+export interface ApiArea {
+  /** Tag name shown as the group heading on the API guide. */
+  tag: string;
+  description: string;
+  register: (registry: OpenAPIRegistry) => void;
+}
+
+export const API_AREAS: ApiArea[] = [
+  // Helper A (public reads: GET gear list/detail, compare, reviews) enables this line with lib/openapi/paths/public-reads.ts:
+  // { tag: 'Browse and reviews', description: 'Public reads of the catalog and the published reviews.', register: registerPublicReads },
+  { tag: 'Gear', description: 'Record gear items and change them (reviewers; editors for any item).', register: registerGearWrites },
+  // Helper B (personal tokens and the bearer security scheme) enables this line with lib/openapi/paths/auth.ts:
+  // { tag: 'Personal tokens', description: 'Personal API tokens for scripts.', register: registerAuth },
+];
+
+const DESCRIPTION = [
+  'The JSON API of Trailbench: public reads of the catalog, and writes for reviewers’ scripts.',
+  '',
+  'Errors always have the body `{ "error": { "code", "message", "fields"? } }` (schema `Error`).',
+  'Write routes accept a session cookie only from this site (same `Origin`), or a personal token as',
+  '`Authorization: Bearer <token>`; a token acts with its owner’s current role.',
+].join('\n');
+
+/** Security requirements may name a scheme another area registers; drop those not (yet) registered. */
+function keepRegisteredSchemes(doc: OpenApiDocument): OpenApiDocument {
+  const known = new Set(Object.keys(doc.components?.securitySchemes ?? {}));
+  for (const item of Object.values(doc.paths ?? {})) {
+    for (const operation of Object.values(item)) {
+      if (!operation || typeof operation !== 'object' || !('security' in operation) || !Array.isArray(operation.security)) continue;
+      const security = (operation.security as Record<string, string[]>[]).filter((req) => Object.keys(req).every((name) => known.has(name)));
+      operation.security = security;
+    }
+  }
+  return doc;
+}
+
+export function buildOpenApiDocument(areas: readonly ApiArea[] = API_AREAS): OpenApiDocument {
+  const registry = createRegistry();
+  for (const area of areas) area.register(registry);
+  const doc = new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: '3.1.0',
+    info: { title: 'Trailbench API', version: '1', description: DESCRIPTION },
+    servers: [{ url: '/' }],
+    tags: areas.map((a) => ({ name: a.tag, description: a.description })),
+  });
+  return keepRegisteredSchemes(doc);
+}
+
+let cached: OpenApiDocument | null = null;
+
+/** The document, built once per process (the schemas do not change at run time). */
+export function openApiDocument(): OpenApiDocument {
+  cached ??= buildOpenApiDocument();
+  return cached;
+}
