@@ -10,6 +10,7 @@ const readerLinks = [
   { href: '/kits', label: 'Kits' },
   { href: '/how-we-test', label: 'How we test' },
   { href: '/safety', label: 'Safety' },
+  { href: '/search', label: 'Search' },
 ];
 
 export async function SiteHeader() {
