@@ -37,6 +37,7 @@ import { AppError } from '@/lib/http/errors';
 import { zodFieldErrors } from '@/lib/http/api';
 import { analyzeFieldTest, measuredSpecs, type FieldTestAnalysis, type ItemContext, type TrialInput } from '@/lib/field-tests/analysis';
 import { KINDS, type FieldTestKind } from '@/lib/field-tests/kinds';
+import { kindCategoryProblem } from '@/lib/field-tests/kind-categories';
 import { fieldTestInputSchema, parseTestDateTime, typedKeysFor, typedTrialSchema, type FieldTestInput } from '@/lib/field-tests/schemas';
 import { formatSpec } from '@/lib/gear/format';
 import { SPECS, type SpecKey } from '@/lib/measure';
@@ -84,6 +85,12 @@ function resolveItems(tx: Q, slugs: readonly string[], actor: Actor): GearItem[]
   return items;
 }
 
+/** Every item must be of a category the test kind can measure (lib/field-tests/kind-categories.ts): a 422 naming each misfit. */
+function assertKindFitsItems(kind: FieldTestKind, items: readonly GearItem[]): void {
+  const problems = items.map((i) => kindCategoryProblem(kind, i)).filter((p): p is string => p !== null);
+  if (problems.length) throw new AppError('invalid', problems[0]!, { fields: { items: problems } });
+}
+
 function recordColumns(data: FieldTestInput) {
   return {
     kind: data.kind,
@@ -103,6 +110,7 @@ export function createFieldTest(db: Db, actor: Actor, raw: unknown, now = new Da
   return db.transaction(
     (tx) => {
       const items = resolveItems(tx, data.items, actor);
+      assertKindFitsItems(data.kind, items);
       const id = randomUUID();
       tx.insert(fieldTests)
         .values({ id, ownerId: actor.id, ...recordColumns(data), status: 'draft', createdAt: now, updatedAt: now })
@@ -127,6 +135,7 @@ export function updateFieldTest(db: Db, actor: Actor, id: string, raw: unknown, 
       // Items already in the test stay allowed even if they are no longer visible to the author.
       const bySlug = new Map(before.map((i) => [i.slug, i]));
       const items = [...data.items.filter((s) => bySlug.has(s)).map((s) => bySlug.get(s)!), ...resolveItems(tx, data.items.filter((s) => !bySlug.has(s)), actor)];
+      assertKindFitsItems(data.kind, items);
       const next = new Set(items.map((i) => i.id));
       const removed = [...kept].filter((i) => !next.has(i));
       if (removed.length) {
