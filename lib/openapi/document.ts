@@ -5,7 +5,10 @@
  */
 import { OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { createRegistry, type OpenAPIRegistry } from './registry';
+import { registerFieldTests } from './paths/field-tests';
 import { registerGearWrites } from './paths/gear';
+import { registerKits } from './paths/kits';
+import { registerPhotos } from './paths/photos';
 
 export type OpenApiDocument = ReturnType<OpenApiGeneratorV31['generateDocument']>;
 
@@ -20,6 +23,9 @@ export const API_AREAS: ApiArea[] = [
   // Helper A (public reads: GET gear list/detail, compare, reviews) enables this line with lib/openapi/paths/public-reads.ts:
   // { tag: 'Browse and reviews', description: 'Public reads of the catalog and the published reviews.', register: registerPublicReads },
   { tag: 'Gear', description: 'Record gear items and change them (reviewers; editors for any item).', register: registerGearWrites },
+  { tag: 'Photos', description: 'Photos of a gear item: list, upload, describe, delete.', register: registerPhotos },
+  { tag: 'Field tests', description: 'Field-test records, their trials and readings, and the review workflow.', register: registerFieldTests },
+  { tag: 'Kits', description: 'Kits and their power budget: your own kits, duplicates and share links.', register: registerKits },
   // Helper B (personal tokens and the bearer security scheme) enables this line with lib/openapi/paths/auth.ts:
   // { tag: 'Personal tokens', description: 'Personal API tokens for scripts.', register: registerAuth },
 ];

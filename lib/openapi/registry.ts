@@ -24,7 +24,8 @@ export const SIGNED_IN: Record<string, string[]>[] = [{ [SESSION_SCHEME]: [] }, 
 /** A route open to everyone that shows more (own drafts) to a signed-in caller. */
 export const OPTIONALLY_SIGNED_IN: Record<string, string[]>[] = [{}, ...SIGNED_IN];
 
-const ERROR_CODES = [...(Object.keys(ERROR_STATUS) as (keyof typeof ERROR_STATUS)[]), 'internal'] as const;
+/** The status table's codes, plus `busy` (503, SQLite lock wait ran out) and `internal` (500). */
+const ERROR_CODES = [...(Object.keys(ERROR_STATUS) as (keyof typeof ERROR_STATUS)[]), 'busy', 'internal'] as const;
 
 export const errorSchema = z
   .object({
@@ -39,7 +40,7 @@ export const errorSchema = z
   })
   .meta({ id: 'Error', description: 'Every 4xx and 5xx response of /api/v1 has this body.' });
 
-export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429;
+export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 503;
 
 /** What each status means in this API (the status table of lib/http/errors.ts). */
 export const ERROR_MEANING: Record<ErrorStatus, string> = {
@@ -52,6 +53,7 @@ export const ERROR_MEANING: Record<ErrorStatus, string> = {
   415: 'Unsupported media type: send one of the media types listed for this operation.',
   422: 'The body fails its schema; `error.fields` names each field.',
   429: 'Too many requests: wait for `Retry-After` seconds.',
+  503: 'The database was busy; nothing was saved. Send the same request again after `Retry-After` seconds.',
 };
 
 /** The responses for the given error statuses, each in the shared error format. */

@@ -1,7 +1,8 @@
 import { NextResponse } from 'next/server';
 import { openApiDocument } from '@/lib/openapi/document';
 
-export const dynamic = 'force-static';
+// Dynamic so our Cache-Control is sent as written (the document itself is built once per process).
+export const dynamic = 'force-dynamic';
 
 /** The OpenAPI 3.1 document of /api/v1 (public). */
 export function GET() {

@@ -1,0 +1,191 @@
+import { z } from 'zod';
+import { CATEGORIES } from '@/lib/measure';
+import { kitInputSchema, kitPatchSchema, MAX_ENTRIES } from '@/lib/kits/schemas';
+import { errorResponses, OPTIONALLY_SIGNED_IN, SIGNED_IN, type OpenAPIRegistry } from '../registry';
+
+const TAG = 'Kits';
+
+const kitParams = z.object({ id: z.string().min(1).max(100).meta({ description: 'The kit’s id.' }) });
+
+/** The kit as stored: the fields of `kitInputSchema` plus ids and times (db/kits.ts KitRecord). */
+const kitRecordSchema = z
+  .object({
+    id: z.string(),
+    name: z.string(),
+    purpose: z.string(),
+    tripDays: z.number().int(),
+    peakSunHours: z.number().nullable().optional(),
+    sky: z.string().nullable().optional(),
+    skyShare: z.number().nullable().optional(),
+    lossFraction: z.number().nullable().optional(),
+    conversionEfficiency: z.number().nullable().optional(),
+    entries: z.array(
+      z.looseObject({ quantity: z.number().int() }).meta({ description: 'An entry as sent (`kitEntrySchema`); `hidden: true` marks a catalog item the viewer may not read, shown as “unpublished item”.' }),
+    ),
+    createdAt: z.string(),
+    updatedAt: z.string(),
+    shareToken: z.string().nullable().optional().meta({ description: 'Only in the owner’s view.' }),
+  })
+  .meta({ id: 'KitRecord' });
+
+/** app/api/v1/kits/view.ts `kitResponse`. */
+export const kitResponseSchema = z
+  .object({
+    kit: kitRecordSchema,
+    items: z.array(z.object({ id: z.string(), slug: z.string(), name: z.string(), maker: z.string(), category: z.enum(CATEGORIES) })).meta({
+      description: 'The catalog items the kit uses that the viewer may read.',
+    }),
+    totals: z
+      .looseObject({
+        massG: z.number(),
+        prices: z.array(z.object({ currency: z.string(), amountMinor: z.number().int() })).meta({ description: 'One total per currency (never added together), in minor units.' }),
+        lightLm: z.number(),
+        storedWh: z.number(),
+        hiddenCount: z.number().int(),
+      })
+      .meta({ description: 'lib/kits/totals.ts KitTotals: mass (with a breakdown by group), prices, light output, stored energy.' }),
+    budget: z
+      .looseObject({
+        result: z.unknown().meta({ description: 'lib/measure powerBudget result (daily Wh used and gathered, usable storage, days of autonomy, day-by-day state of charge), or null when the kit cannot be budgeted.' }),
+        problem: z.unknown(),
+        warnings: z.array(z.unknown()),
+        loads: z.array(z.unknown()),
+        storage: z.array(z.unknown()),
+        panels: z.array(z.unknown()),
+      })
+      .meta({ description: 'The power budget of the kit (lib/kits/budget.ts).' }),
+  })
+  .meta({ id: 'Kit' });
+
+export const kitListSchema = z.object({
+  kits: z.array(
+    z.object({ id: z.string(), name: z.string(), purpose: z.string(), tripDays: z.number().int(), entryCount: z.number().int(), shared: z.boolean(), updatedAt: z.string() }),
+  ),
+});
+
+export const kitCopySchema = z.object({ kit: z.object({ id: z.string(), name: z.string(), path: z.string() }) });
+export const kitShareSchema = z.object({
+  token: z.string().meta({ description: 'At least 128 random bits, URL-safe.' }),
+  path: z.string().meta({ description: '`/kits/shared/{token}`: the read-only page for anyone with the link.' }),
+});
+
+const privateNoStore = { description: 'Never cached: `private, no-store`.', headers: z.object({ 'Cache-Control': z.literal('private, no-store') }) };
+
+/** /api/v1/kits… (app/api/v1/kits). */
+export function registerKits(registry: OpenAPIRegistry): void {
+  registry.registerPath({
+    method: 'get',
+    path: '/api/v1/kits',
+    tags: [TAG],
+    summary: 'List your kits',
+    security: SIGNED_IN,
+    responses: {
+      200: { ...privateNoStore, description: 'Summaries of the caller’s own kits.', content: { 'application/json': { schema: kitListSchema } } },
+      ...errorResponses(401),
+    },
+  });
+
+  registry.registerPath({
+    method: 'post',
+    path: '/api/v1/kits',
+    tags: [TAG],
+    summary: 'Save a kit',
+    description: `Private until shared. Up to ${MAX_ENTRIES} entries: catalog items by id (only items you may read) or free-form entries with a name and, for powered things, their draw.`,
+    security: SIGNED_IN,
+    request: { body: { required: true, content: { 'application/json': { schema: kitInputSchema } } } },
+    responses: {
+      201: { description: 'The kit with its totals and budget; `Location` is its page.', content: { 'application/json': { schema: kitResponseSchema } } },
+      ...errorResponses(400, 401, 403, 413, 415, 422, 503),
+    },
+  });
+
+  registry.registerPath({
+    method: 'get',
+    path: '/api/v1/kits/{id}',
+    tags: [TAG],
+    summary: 'Read your kit',
+    description: 'With totals and the power budget. Anyone else’s kit is 404.',
+    security: SIGNED_IN,
+    request: { params: kitParams },
+    responses: {
+      200: { ...privateNoStore, description: 'The kit.', content: { 'application/json': { schema: kitResponseSchema } } },
+      ...errorResponses(401, 404),
+    },
+  });
+
+  registry.registerPath({
+    method: 'patch',
+    path: '/api/v1/kits/{id}',
+    tags: [TAG],
+    summary: 'Change your kit',
+    description: 'Any subset of the fields; `entries`, when given, replaces the list.',
+    security: SIGNED_IN,
+    request: { params: kitParams, body: { required: true, content: { 'application/json': { schema: kitPatchSchema } } } },
+    responses: {
+      200: { ...privateNoStore, description: 'The kit as saved.', content: { 'application/json': { schema: kitResponseSchema } } },
+      ...errorResponses(400, 401, 403, 404, 413, 415, 422, 503),
+    },
+  });
+
+  registry.registerPath({
+    method: 'delete',
+    path: '/api/v1/kits/{id}',
+    tags: [TAG],
+    summary: 'Delete your kit',
+    security: SIGNED_IN,
+    request: { params: kitParams },
+    responses: { 204: { description: 'Deleted (its share link stops working).' }, ...errorResponses(401, 403, 404, 503) },
+  });
+
+  registry.registerPath({
+    method: 'post',
+    path: '/api/v1/kits/{id}/duplicate',
+    tags: [TAG],
+    summary: 'Duplicate your kit',
+    description: 'A private copy (never shared).',
+    security: SIGNED_IN,
+    request: { params: kitParams },
+    responses: {
+      201: { description: 'The copy; `Location` is its page.', content: { 'application/json': { schema: kitCopySchema } } },
+      ...errorResponses(401, 403, 404, 503),
+    },
+  });
+
+  registry.registerPath({
+    method: 'post',
+    path: '/api/v1/kits/{id}/share',
+    tags: [TAG],
+    summary: 'Make a share link',
+    description: 'A new random token; any earlier link of this kit stops working.',
+    security: SIGNED_IN,
+    request: { params: kitParams },
+    responses: {
+      201: { description: 'The link.', content: { 'application/json': { schema: kitShareSchema } } },
+      ...errorResponses(401, 403, 404, 503),
+    },
+  });
+
+  registry.registerPath({
+    method: 'delete',
+    path: '/api/v1/kits/{id}/share',
+    tags: [TAG],
+    summary: 'Revoke the share link',
+    security: SIGNED_IN,
+    request: { params: kitParams },
+    responses: { 204: { description: 'Revoked at once.' }, ...errorResponses(401, 403, 404, 503) },
+  });
+
+  registry.registerPath({
+    method: 'get',
+    path: '/api/v1/kits/shared/{token}',
+    tags: [TAG],
+    summary: 'Read a shared kit',
+    description: 'Read-only, for anyone with the link. Catalog items the viewer may not read appear as “unpublished item” with no details.',
+    security: OPTIONALLY_SIGNED_IN,
+    request: { params: z.object({ token: z.string().min(22).max(128).meta({ description: 'The share token from the link.' }) }) },
+    responses: {
+      200: { ...privateNoStore, description: 'The kit (no share token).', content: { 'application/json': { schema: kitResponseSchema } } },
+      ...errorResponses(404),
+    },
+  });
+}
