@@ -7,6 +7,9 @@ import { gearPath } from '@/lib/gear/paths';
 
 export const dynamic = 'force-dynamic';
 
+/** Browse the catalog (query parameters and answer: lib/browse/query.ts, lib/browse/contract.ts). */
+export { handleGearList as GET } from '@/lib/browse/handlers';
+
 /** Create a draft gear item: JSON body of `gearInputSchema` (lib/gear/schemas.ts); 201 with its slug and page. */
 export const POST = apiHandler(async (request: Request) => {
   const user = await requireRole('reviewer');

@@ -7,6 +7,9 @@ import { gearPath } from '@/lib/gear/paths';
 
 export const dynamic = 'force-dynamic';
 
+/** One item's summary (lib/browse/contract.ts GearSummary); 404 when unknown or not visible to the caller. */
+export { handleGearItem as GET } from '@/lib/browse/handlers';
+
 /**
  * Change a gear item: JSON body of `gearPatchSchema` (any subset of the editable fields). 404 when the
  * caller may not see it, 403 when not theirs, 409 while in review, 422 for invalid fields. An approved
