@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import type { ReactNode } from 'react';
+import { Providers } from '@/components/providers';
 import { SiteFooter } from '@/components/site-footer';
 import { SiteHeader } from '@/components/site-header';
 import { plexMono, publicSans } from './fonts';
@@ -15,11 +16,13 @@ export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={`${publicSans.variable} ${plexMono.variable}`}>
       <body className="flex min-h-screen flex-col bg-paper text-ink antialiased">
-        <SiteHeader />
-        <div id="main" className="flex-1">
-          {children}
-        </div>
-        <SiteFooter />
+        <Providers>
+          <SiteHeader />
+          <div id="main" className="flex-1">
+            {children}
+          </div>
+          <SiteFooter />
+        </Providers>
       </body>
     </html>
   );

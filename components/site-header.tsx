@@ -5,7 +5,9 @@ import { getCurrentUser } from '@/lib/auth/guard';
 import { hasRole, ROLE_LABELS } from '@/lib/auth/roles';
 
 const readerLinks = [
-  { href: '/gear', label: 'Gear' },
+  { href: '/gear', label: 'Browse' },
+  { href: '/side-by-side', label: 'Side-by-side' },
+  { href: '/best-value', label: 'Best value' },
   { href: '/reviews', label: 'Reviews' },
   { href: '/kits', label: 'Kits' },
   { href: '/how-we-test', label: 'How we test' },

@@ -10,6 +10,7 @@ import { canEditGear, getGearView, specHistory } from '@/db/gear';
 import { countPhotos } from '@/db/photos';
 import { PhotoGallery } from '@/components/photos/photo-gallery';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
+import { AddToSideBySide } from '@/components/side-by-side/add-to-side-by-side';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { CATEGORY_DEFS, CHEMISTRY_LABELS, kindLabel } from '@/lib/gear/categories';
 import { formatMoney, formatQuantity } from '@/lib/gear/format';
@@ -65,6 +66,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
           {version.maker}
           {version.modelYear ? ` · model year ${version.modelYear}` : ''} · recorded by {item.ownerName}
         </p>
+        {item.approvedAt !== null ? <AddToSideBySide slug={item.slug} name={version.name} /> : null}
         {view.insider ? (
           <div className="flex flex-wrap items-center gap-3">
             <StatusBadge status={item.status} />
