@@ -13,7 +13,8 @@
  * - Charge at a nominal voltage for energy: "10 400 mAh at 3.6 V", "10400 mAh @ 3.6 V", "100 Ah @ 12.8 V"
  *   (Wh = Ah × V, 49 CFR 171.8, through lib/measure `chargeToWh`).
  * - Current at a supply voltage for power: "1.5 A at 13.8 V", "450 mA @ 5 V" (W = A × V).
- * - A bare number is taken in the canonical unit (g, Wh, W, lm, cd, lx, m, s, V, A) and the echo says so.
+ * - A bare number is taken in the canonical unit (g, Wh, W, lm, cd, lx, m, s, V, A, cycles, %) and the echo says so.
+ * - Counts ("2000 cycles") are whole numbers; shares ("92 %") are at most 100 %.
  * - Negative, zero (unless allowed), non-finite and absurdly large values are refused.
  */
 import { chargeToWh, convert, quantityOf, CANONICAL_UNIT, type Quantity, type UnitSymbol } from '@/lib/measure';
@@ -32,7 +33,7 @@ export class QuantityParseError extends Error {
 /** Quantities a reviewer may type into a spec field. */
 export type TypedQuantity = Extract<
   Quantity,
-  'mass' | 'energy' | 'power' | 'luminousFlux' | 'luminousIntensity' | 'illuminance' | 'length' | 'duration' | 'voltage' | 'current'
+  'mass' | 'energy' | 'power' | 'luminousFlux' | 'luminousIntensity' | 'illuminance' | 'length' | 'duration' | 'voltage' | 'current' | 'count' | 'fraction'
 >;
 
 /** Typed aliases (lower-case) → unit symbol of lib/measure. */
@@ -44,6 +45,7 @@ const ALIASES: Record<string, UnitSymbol> = {
   mm: 'mm', cm: 'cm', m: 'm', km: 'km', in: 'in', ft: 'ft', yd: 'yd', mi: 'mi',
   s: 's', sec: 's', min: 'min', h: 'h', hr: 'h', hrs: 'h', d: 'd', day: 'd', days: 'd',
   v: 'V', a: 'A', ma: 'mA', mah: 'mAh', ah: 'Ah',
+  cycles: 'cycles', cycle: 'cycles', '%': '%', percent: '%',
 };
 
 /** Units a reviewer may type per quantity (as shown in hints), canonical first. */
@@ -58,6 +60,8 @@ export const TYPED_UNITS: Record<TypedQuantity, readonly string[]> = {
   duration: ['h', 'min', 's', 'd'],
   voltage: ['V'],
   current: ['A', 'mA'],
+  count: ['cycles'],
+  fraction: ['%'],
 };
 
 /** Upper bound for any typed figure in its canonical unit: far above any real gear, far below overflow. */
@@ -73,7 +77,7 @@ export interface ParsedQuantity {
 }
 
 const NUMBER = String.raw`(?:(?:\d{1,3}(?:[ \u00a0\u202f]\d{3})+(?!\d)|\d{1,3}(?:,\d{3})+(?!\d)|\d+)(?:\.\d+)?|\.\d+)`;
-const PART = new RegExp(String.raw`^([-\u2212]?)\s*(${NUMBER})\s*([a-zA-Z]+)?\s*`);
+const PART = new RegExp(String.raw`^([-\u2212]?)\s*(${NUMBER})\s*([a-zA-Z]+|%)?\s*`);
 const JOIN = /^(?:at|@)\s*/i;
 
 function toNumber(raw: string): number {
@@ -195,6 +199,8 @@ export function parseQuantity(text: string, quantity: TypedQuantity, options: { 
   if (!Number.isFinite(value)) throw new QuantityParseError('too-large', 'The value is too large.');
   if (value > MAX_CANONICAL) throw new QuantityParseError('too-large', `The value is too large (over ${MAX_CANONICAL.toExponential()} ${canonical}).`);
   if (value === 0 && !options.allowZero) throw new QuantityParseError('zero', 'The value must be greater than zero.');
+  if (quantity === 'fraction' && value > 100) throw new QuantityParseError('too-large', 'A share such as an efficiency cannot be over 100 %.');
+  if (quantity === 'count' && !Number.isInteger(value)) throw new QuantityParseError('not-a-number', 'A count is a whole number, e.g. "2000 cycles".');
   return { value, unit: canonical, assumedUnit };
 }
 
@@ -209,6 +215,8 @@ const QUANTITY_WORDS: Record<TypedQuantity, string> = {
   duration: 'time',
   voltage: 'voltage',
   current: 'current',
+  count: 'count',
+  fraction: 'share',
 };
 
 export function describe(quantity: TypedQuantity): string {

@@ -52,6 +52,15 @@ export const SPECS = {
   supplyVoltage: { unit: 'V', quantity: 'voltage', higherIsBetter: null, measuredOnly: false, label: 'Supply voltage' },
   continuousPower: { unit: 'W', quantity: 'power', higherIsBetter: true, measuredOnly: false, label: 'Continuous output power' },
   chargeTime: { unit: 's', quantity: 'duration', higherIsBetter: false, measuredOnly: false, label: 'Time to full charge' },
+  rechargePower: { unit: 'W', quantity: 'power', higherIsBetter: true, measuredOnly: false, label: 'Recharge input power' },
+  continuousCurrent: { unit: 'A', quantity: 'current', higherIsBetter: true, measuredOnly: false, label: 'Continuous current' },
+  ratedCurrent: { unit: 'A', quantity: 'current', higherIsBetter: true, measuredOnly: false, label: 'Rated current' },
+  cycleRating: { unit: 'cycles', quantity: 'count', higherIsBetter: true, measuredOnly: false, label: 'Cycle rating' },
+  cableLength: { unit: 'm', quantity: 'length', higherIsBetter: null, measuredOnly: false, label: 'Cable length' },
+  foldedLength: { unit: 'm', quantity: 'length', higherIsBetter: false, measuredOnly: false, label: 'Folded length' },
+  foldedWidth: { unit: 'm', quantity: 'length', higherIsBetter: false, measuredOnly: false, label: 'Folded width' },
+  foldedDepth: { unit: 'm', quantity: 'length', higherIsBetter: false, measuredOnly: false, label: 'Folded depth' },
+  conversionEfficiency: { unit: '%', quantity: 'fraction', higherIsBetter: true, measuredOnly: false, label: 'Conversion efficiency' },
 } as const satisfies Record<string, SpecInfo>;
 
 /** A spec key (see `SPECS` for units). */

@@ -13,7 +13,11 @@ export type Quantity =
   | 'temperature'
   | 'voltage'
   | 'current'
-  | 'charge';
+  | 'charge'
+  /** A count such as a battery's rated charge cycles. */
+  | 'count'
+  /** A share in per cent, such as a converter's efficiency. */
+  | 'fraction';
 
 /**
  * A linear unit: value in the canonical unit = value × num ÷ den.
@@ -73,6 +77,9 @@ const LINEAR = {
   A: { quantity: 'current', num: 1, den: 1 },
   mAh: { quantity: 'charge', num: 1, den: 1000 },
   Ah: { quantity: 'charge', num: 1, den: 1 },
+  // dimensionless
+  cycles: { quantity: 'count', num: 1, den: 1 },
+  '%': { quantity: 'fraction', num: 1, den: 1 },
 } as const satisfies Record<string, LinearUnit>;
 
 const TEMPERATURE_UNITS = ['degC', 'degF', 'K'] as const;
@@ -95,6 +102,8 @@ export const UNITS_BY_QUANTITY: Readonly<Record<Quantity, readonly UnitSymbol[]>
   voltage: ['V'],
   current: ['A', 'mA'],
   charge: ['Ah', 'mAh'],
+  count: ['cycles'],
+  fraction: ['%'],
 };
 
 /** The canonical (stored) unit of each quantity. */
@@ -111,6 +120,8 @@ export const CANONICAL_UNIT: Readonly<Record<Quantity, UnitSymbol>> = {
   voltage: 'V',
   current: 'A',
   charge: 'Ah',
+  count: 'cycles',
+  fraction: '%',
 };
 
 /** Every unit symbol, in the order of `UNITS_BY_QUANTITY`. */

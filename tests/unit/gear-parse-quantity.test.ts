@@ -91,3 +91,29 @@ describe('parseQuantity: refusals', () => {
     expect(parseQuantity('0 g', 'mass', { allowZero: true }).value).toBe(0);
   });
 });
+
+describe('parseQuantity: counts, shares and sizes (issue 4 non-power specs)', () => {
+  it('reads cycle ratings as whole counts', () => {
+    expect(value('2000 cycles', 'count')).toBe(2000);
+    expect(value('4 000 cycles', 'count')).toBe(4000);
+    expect(value('500', 'count')).toBe(500);
+    expect(code('2000.5 cycles', 'count')).toBe('not-a-number');
+    expect(code('2000 g', 'count')).toBe('wrong-quantity');
+  });
+
+  it('reads efficiencies in per cent, at most 100 %', () => {
+    expect(value('92 %', 'fraction')).toBe(92);
+    expect(value('87.5%', 'fraction')).toBe(87.5);
+    expect(value('90 percent', 'fraction')).toBe(90);
+    expect(code('104 %', 'fraction')).toBe('too-large');
+    expect(code('-3 %', 'fraction')).toBe('negative');
+    expect(code('12 %', 'mass')).toBe('wrong-quantity');
+  });
+
+  it('reads folded sizes and cable lengths into metres', () => {
+    // 1 in = 0.0254 m exactly (international yard and pound agreement, 1959; check-values §3).
+    expect(value('21 in', 'length')).toBeCloseTo(0.5334, 12);
+    expect(value('53 cm', 'length')).toBeCloseTo(0.53, 12);
+    expect(value('1 ft 6 in', 'length')).toBeCloseTo(0.4572, 12);
+  });
+});
