@@ -97,3 +97,61 @@ export { paretoFront, type Direction, type ParetoDirections } from './pareto';
 export { summarize, type TrialSummary } from './stats';
 
 export { valueRatios, type ValueRatio, type RatioBasis } from './ratios';
+
+export {
+  PORT_KINDS,
+  PORT_DIRECTIONS,
+  PORT_KIND_LABELS,
+  NOMINAL_VOLTAGE_TOLERANCE,
+  PD_MAX_VOLTS,
+  PD_MAX_AMPS,
+  PD_STANDARD_CABLE_AMPS,
+  validatePort,
+  pdProfileSatisfies,
+  portFits,
+  connectorsJoin,
+  nominalVolts,
+  portKindLabel,
+  formatFigure,
+  type Port,
+  type PortKind,
+  type PortDirection,
+  type PdProfile,
+  type VoltageWindow,
+  type PortFit,
+  type PortFitProblem,
+} from './ports';
+
+export {
+  findChargingPaths,
+  KIT_POWER_ROLES,
+  PATH_SEARCH_LIMITS,
+  type KitPowerRole,
+  type KitPowerItem,
+  type LinkEnd,
+  type ChargingKit,
+  type PathStep,
+  type ChargingPath,
+  type DeviceChargingPaths,
+  type ChargingPathsResult,
+} from './paths';
+
+export {
+  sMeterToDbm,
+  noiseRiseDb,
+  radioQuietVerdict,
+  radioQuietSummary,
+  S_METER_RANGES,
+  S9_DBM,
+  DB_PER_S_UNIT,
+  MAX_DB_OVER_S9,
+  RADIO_QUIET_VERDICTS,
+  RADIO_QUIET_THRESHOLDS_DB,
+  RADIO_QUIET_WORDING,
+  type SMeterRange,
+  type RadioQuietVerdict,
+  type BandNoiseRise,
+  type BandQuietness,
+  type RangeQuietness,
+  type RadioQuietSummary,
+} from './radio-noise';

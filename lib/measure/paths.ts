@@ -1,0 +1,479 @@
+import { assertRange, finiteResult, MeasureError } from './errors';
+import { PORT_KIND_LABELS, portFits, portKindLabel, validatePort, type Port, type PortKind } from './ports';
+
+/**
+ * Roles of kit items in charging paths: `source` (a panel), `storage` (a battery or bank),
+ * `device` (a load to run or charge), `cable` (passes power through, may change the connector)
+ * and `adapter` (converts: a 12 V-to-USB-C charger, a PD trigger lead).
+ */
+export const KIT_POWER_ROLES = ['source', 'storage', 'device', 'cable', 'adapter'] as const;
+export type KitPowerRole = (typeof KIT_POWER_ROLES)[number];
+
+/** An end of a cable or adapter; its direction is implied (`from` plugs into an output, `to` feeds an input). */
+export type LinkEnd = Omit<Port, 'direction'>;
+
+/** One item of a kit as the path finder sees it. */
+export interface KitPowerItem {
+  /** Unique within the kit. */
+  id: string;
+  name: string;
+  role: KitPowerRole;
+  /** Whole number ≥ 1; default 1. Paths are possible routes, not an allocation of units. */
+  quantity?: number;
+  /** Ports of a source, storage or device. */
+  ports?: Port[];
+  /** Cable or adapter: the end that plugs into an output. */
+  from?: LinkEnd;
+  /** Cable or adapter: the end that feeds an input. */
+  to?: LinkEnd;
+  /** Cable or adapter: conversion efficiency, (0, 1]; required for an adapter, default 1 for a cable. */
+  efficiency?: number;
+}
+
+export interface ChargingKit {
+  items: KitPowerItem[];
+}
+
+/** One step of a path: leaving an item by a port, passing a cable or adapter, or entering an item by a port. */
+export interface PathStep {
+  kind: 'output' | 'link' | 'input';
+  itemId: string;
+  itemName: string;
+  role: KitPowerRole;
+  /** Index of the port in the item's `ports` (output and input steps). */
+  portIndex?: number;
+  /** "USB-C output", "solar input", "Car charger (12 V socket → USB-C)". */
+  description: string;
+  efficiency: number;
+}
+
+export interface ChargingPath {
+  steps: PathStep[];
+  /** Product of every step's efficiency. */
+  efficiency: number;
+  /**
+   * Product of the steps from the last storage's output to the device: the efficiency to use for
+   * this device's draw in a power budget. Null when the path has no storage (panel straight to device).
+   */
+  fromStorageEfficiency: number | null;
+  startsAt: 'source' | 'storage';
+  /** Things to check by hand along the path (plug sizes, unstated currents, cable ratings). */
+  cautions: string[];
+}
+
+export interface DeviceChargingPaths {
+  itemId: string;
+  itemName: string;
+  quantity: number;
+  /** Every path found, highest efficiency first, then fewest steps. */
+  paths: ChargingPath[];
+  /** Why there is no path (empty when there is one). */
+  reasons: string[];
+}
+
+export interface ChargingPathsResult {
+  devices: DeviceChargingPaths[];
+  /** True when the search stopped at its bounds; some paths may be missing. */
+  truncated: boolean;
+}
+
+/** Bounds of the search (our own limits, to keep any kit's answer fast). */
+export const PATH_SEARCH_LIMITS = {
+  items: 200,
+  portsPerItem: 16,
+  /** Cables and adapters in a row between two items. */
+  linksInARow: 3,
+  /** Paths kept per device. */
+  pathsPerDevice: 50,
+  /** Search steps in total. */
+  searchSteps: 200_000,
+} as const;
+
+const MAX_ID = 100;
+const MAX_NAME = 200;
+
+interface Item {
+  id: string;
+  name: string;
+  role: KitPowerRole;
+  quantity: number;
+  ports: Port[];
+  from?: Port;
+  to?: Port;
+  efficiency: number;
+}
+
+function text(value: unknown, what: string, max: number): string {
+  if (typeof value !== 'string' || value.trim() === '' || value.length > max) {
+    throw new MeasureError('out-of-range', `${what} must be non-empty text of at most ${max} characters.`);
+  }
+  return value.trim();
+}
+
+function validateLinkEnd(value: unknown, direction: 'input' | 'output', what: string, cable: boolean): Port {
+  if (value === null || typeof value !== 'object' || Array.isArray(value)) {
+    throw new MeasureError('out-of-range', `${what} must be an object with a kind.`);
+  }
+  const end = value as Record<string, unknown>;
+  if (cable && (end.volts != null || end.pdProfiles != null || end.voltageWindow != null)) {
+    throw new MeasureError(
+      'out-of-range',
+      `${what}: a cable passes its input through, so its ends state no voltage; record a converter as an adapter.`,
+    );
+  }
+  return validatePort(
+    {
+      kind: end.kind,
+      direction,
+      volts: end.volts,
+      amps: end.amps,
+      watts: end.watts,
+      pdProfiles: end.pdProfiles,
+      voltageWindow: direction === 'input' ? end.voltageWindow : undefined,
+      label: end.label,
+      efficiency: end.efficiency,
+    },
+    what,
+  );
+}
+
+function validateKit(kit: unknown): Item[] {
+  if (kit === null || typeof kit !== 'object' || !Array.isArray((kit as ChargingKit).items)) {
+    throw new MeasureError('out-of-range', 'A kit for charging paths needs a list of items.');
+  }
+  const raw = (kit as ChargingKit).items as unknown[];
+  if (raw.length > PATH_SEARCH_LIMITS.items) {
+    throw new MeasureError('out-of-range', `A kit may hold at most ${PATH_SEARCH_LIMITS.items} items for charging paths.`);
+  }
+  const ids = new Set<string>();
+  return raw.map((value, i) => {
+    if (value === null || typeof value !== 'object' || Array.isArray(value)) {
+      throw new MeasureError('out-of-range', `Item ${i + 1} must be an object.`);
+    }
+    const v = value as Record<string, unknown>;
+    const id = text(v.id, `Item ${i + 1}: id`, MAX_ID);
+    if (ids.has(id)) throw new MeasureError('out-of-range', `Item ${i + 1}: the id "${id}" is used twice.`);
+    ids.add(id);
+    const name = text(v.name, `Item ${i + 1}: name`, MAX_NAME);
+    const what = `Item ${i + 1} (${name})`;
+    if (typeof v.role !== 'string' || !(KIT_POWER_ROLES as readonly string[]).includes(v.role)) {
+      throw new MeasureError('out-of-range', `${what}: role must be one of ${KIT_POWER_ROLES.join(', ')}, got "${String(v.role)}".`);
+    }
+    const role = v.role as KitPowerRole;
+    const quantity =
+      v.quantity === undefined || v.quantity === null
+        ? 1
+        : assertRange(v.quantity as number, `${what}: quantity`, { min: 1, max: 1_000_000, integer: true });
+    if (role === 'cable' || role === 'adapter') {
+      const cable = role === 'cable';
+      const from = validateLinkEnd(v.from, 'input', `${what}: the end that plugs into an output`, cable);
+      const to = validateLinkEnd(v.to, 'output', `${what}: the end that feeds an input`, cable);
+      if (!cable && to.volts === undefined && !to.pdProfiles && to.kind !== 'usb-a' && to.kind !== 'usb-c' && to.kind !== 'socket-12v') {
+        throw new MeasureError('out-of-range', `${what}: an adapter must state the voltage it gives.`);
+      }
+      if (!cable && (v.efficiency === undefined || v.efficiency === null)) {
+        throw new MeasureError('out-of-range', `${what}: an adapter needs its conversion efficiency (0 to 1).`);
+      }
+      const efficiency =
+        v.efficiency === undefined || v.efficiency === null
+          ? 1
+          : assertRange(v.efficiency as number, `${what}: efficiency`, { min: 0, minExclusive: true, max: 1 });
+      return { id, name, role, quantity, ports: [], from, to, efficiency };
+    }
+    if (v.from != null || v.to != null) {
+      throw new MeasureError('out-of-range', `${what}: only a cable or adapter has two ends; list this item's ports instead.`);
+    }
+    const portsRaw = v.ports ?? [];
+    if (!Array.isArray(portsRaw) || portsRaw.length > PATH_SEARCH_LIMITS.portsPerItem) {
+      throw new MeasureError('out-of-range', `${what}: ports must be a list of at most ${PATH_SEARCH_LIMITS.portsPerItem}.`);
+    }
+    const ports = portsRaw.map((p, j) => validatePort(p, `${what}: port ${j + 1}`));
+    return { id, name, role, quantity, ports, efficiency: 1 };
+  });
+}
+
+const isOutput = (p: Port) => p.direction !== 'input';
+const isInput = (p: Port) => p.direction !== 'output';
+
+function portDescription(port: Port, side: 'input' | 'output'): string {
+  return `${portKindLabel(port)} ${side}`;
+}
+
+/** What is on offer at the end of a partial path: a port (possibly reshaped by cables) and its name for messages. */
+interface Offer {
+  port: Port;
+  name: string;
+}
+
+/** Power after a plain cable: the upstream voltage and profiles, current limited by the cable's rating. */
+function throughCable(up: Port, cable: Item): Port {
+  const from = cable.from as Port;
+  const to = cable.to as Port;
+  const ratings = [from.amps, to.amps].filter((a): a is number => a !== undefined);
+  const cableAmps = ratings.length ? Math.min(...ratings) : undefined;
+  const capAmps = (a: number | undefined) => (cableAmps === undefined ? a : a === undefined ? cableAmps : Math.min(a, cableAmps));
+  const ratingWatts = [from.watts, to.watts, up.watts].filter((w): w is number => w !== undefined);
+  const out: Port = { kind: to.kind, direction: 'output' };
+  if (to.label) out.label = to.label;
+  if (up.pdProfiles && to.kind === 'usb-c') {
+    // A plain cable carries the negotiated profiles, each limited to the cable's current rating.
+    out.pdProfiles = up.pdProfiles.map((p) => ({ volts: p.volts, amps: capAmps(p.amps) as number }));
+  } else if (up.pdProfiles) {
+    // Without USB-C at the far end nothing negotiates a higher voltage: the default 5 V remains.
+    const fiveVolt = up.pdProfiles.find((p) => Math.abs(p.volts - 5) <= 1e-3);
+    out.volts = 5;
+    const amps = capAmps(fiveVolt?.amps ?? up.amps);
+    if (amps !== undefined) out.amps = amps;
+  } else {
+    const volts = up.volts ?? (up.kind === 'usb-a' || up.kind === 'usb-c' ? 5 : up.kind === 'socket-12v' ? 12 : undefined);
+    if (volts !== undefined) out.volts = volts;
+    const amps = capAmps(up.amps);
+    if (amps !== undefined) out.amps = amps;
+  }
+  if (ratingWatts.length) out.watts = Math.min(...ratingWatts);
+  return out;
+}
+
+function cableJoins(up: Port, cable: Item): boolean {
+  const from = cable.from as Port;
+  if (up.kind !== from.kind) return false;
+  return up.kind !== 'other' || (up.label ?? '').toLowerCase() === (from.label ?? '').toLowerCase();
+}
+
+function linkDescription(link: Item): string {
+  return `${link.name} (${portKindLabel(link.from as Port)} → ${portKindLabel(link.to as Port)})`;
+}
+
+function stepKey(s: PathStep): string {
+  return `${s.kind}:${s.itemId}:${s.portIndex ?? ''}`;
+}
+
+/** "a 12 V socket", "USB-A" — for "no cable joins … to …" sentences. */
+function withArticle(kind: PortKind, label?: string): string {
+  if (kind === 'other') return label ?? 'another connector';
+  if (kind === 'usb-a' || kind === 'usb-c') return PORT_KIND_LABELS[kind];
+  if (kind === 'binding-posts') return 'binding posts';
+  return `a ${PORT_KIND_LABELS[kind]}`;
+}
+
+function joinOr(parts: string[]): string {
+  if (parts.length <= 1) return parts.join('');
+  return `${parts.slice(0, -1).join(', ')} or ${parts[parts.length - 1]}`;
+}
+
+interface Attempt {
+  joined: boolean;
+  reasons: string[];
+}
+
+/**
+ * Every way the kit's panels and stored energy can reach each device: panel → storage →
+ * port → cable/adapter → device (storage may feed storage), or storage → device, or panel →
+ * device. A path never visits an item twice and uses a cable or adapter at most once; at most
+ * three cables or adapters in a row. Paths that are the tail of a longer path from a panel are
+ * not listed separately. When a device has no path, `reasons` says why in plain words.
+ *
+ * Throws `MeasureError` for a malformed kit (see `KitPowerItem`).
+ */
+export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
+  const items = validateKit(kit);
+  const devices = items.filter((i) => i.role === 'device');
+  const links = items.filter((i) => i.role === 'cable' || i.role === 'adapter');
+  const targets = items.filter((i) => i.role === 'device' || i.role === 'storage');
+  const found = new Map<string, ChargingPath[]>(devices.map((d) => [d.id, []]));
+  const attempts = new Map<string, Attempt[]>(devices.map((d) => [d.id, []]));
+  let budget: number = PATH_SEARCH_LIMITS.searchSteps;
+  let truncated = false;
+
+  const emit = (deviceId: string, steps: PathStep[], cautions: string[]) => {
+    const list = found.get(deviceId) as ChargingPath[];
+    // Collect generously; trimmed per device after tails are removed.
+    if (list.length >= PATH_SEARCH_LIMITS.pathsPerDevice * 4) {
+      truncated = true;
+      return;
+    }
+    const efficiency = finiteResult(
+      steps.reduce((acc, s) => acc * s.efficiency, 1),
+      'Path efficiency',
+    );
+    let lastStorageOut = -1;
+    steps.forEach((s, i) => {
+      if (s.kind === 'output' && s.role === 'storage') lastStorageOut = i;
+    });
+    const fromStorageEfficiency = lastStorageOut < 0 ? null : steps.slice(lastStorageOut).reduce((acc, s) => acc * s.efficiency, 1);
+    list.push({
+      steps,
+      efficiency,
+      fromStorageEfficiency,
+      startsAt: steps[0]?.role === 'source' ? 'source' : 'storage',
+      cautions: [...new Set(cautions)],
+    });
+  };
+
+  const explore = (
+    offer: Offer,
+    steps: PathStep[],
+    visited: Set<string>,
+    usedLinks: Set<string>,
+    linksInARow: number,
+    cautions: string[],
+  ) => {
+    if (--budget < 0) {
+      truncated = true;
+      return;
+    }
+    for (const target of targets) {
+      if (visited.has(target.id)) continue;
+      target.ports.forEach((port, index) => {
+        if (!isInput(port)) return;
+        const fit = portFits(offer.port, port, { output: offer.name, input: target.name });
+        const inputStep: PathStep = {
+          kind: 'input',
+          itemId: target.id,
+          itemName: target.name,
+          role: target.role,
+          portIndex: index,
+          description: portDescription(port, 'input'),
+          efficiency: port.efficiency ?? 1,
+        };
+        if (target.role === 'device') {
+          attempts.get(target.id)?.push({ joined: fit.problem !== 'connector', reasons: fit.reasons });
+          if (fit.fits) emit(target.id, [...steps, inputStep], [...cautions, ...fit.cautions]);
+          return;
+        }
+        if (!fit.fits) return;
+        const nextVisited = new Set(visited).add(target.id);
+        target.ports.forEach((outPort, outIndex) => {
+          // The same port may be used in and out: paths are routes for energy over time, not at one moment.
+          if (!isOutput(outPort)) return;
+          explore(
+            { port: outPort, name: target.name },
+            [
+              ...steps,
+              inputStep,
+              {
+                kind: 'output',
+                itemId: target.id,
+                itemName: target.name,
+                role: target.role,
+                portIndex: outIndex,
+                description: portDescription(outPort, 'output'),
+                efficiency: outPort.efficiency ?? 1,
+              },
+            ],
+            nextVisited,
+            usedLinks,
+            0,
+            [...cautions, ...fit.cautions],
+          );
+        });
+      });
+    }
+    if (linksInARow >= PATH_SEARCH_LIMITS.linksInARow) return;
+    for (const link of links) {
+      if (usedLinks.has(link.id)) continue;
+      let next: Port;
+      let linkCautions: string[] = [];
+      if (link.role === 'cable') {
+        if (!cableJoins(offer.port, link)) continue;
+        next = throughCable(offer.port, link);
+      } else {
+        const fit = portFits(offer.port, link.from as Port, { output: offer.name, input: link.name });
+        if (!fit.fits) continue;
+        linkCautions = fit.cautions;
+        next = link.to as Port;
+      }
+      explore(
+        { port: next, name: `${offer.name} through ${link.name}` },
+        [
+          ...steps,
+          {
+            kind: 'link',
+            itemId: link.id,
+            itemName: link.name,
+            role: link.role,
+            description: linkDescription(link),
+            efficiency: link.efficiency,
+          },
+        ],
+        visited,
+        new Set(usedLinks).add(link.id),
+        linksInARow + 1,
+        [...cautions, ...linkCautions],
+      );
+    }
+  };
+
+  const starts = items.filter((i) => i.role === 'source' || i.role === 'storage');
+  for (const start of starts) {
+    start.ports.forEach((port, index) => {
+      if (!isOutput(port)) return;
+      explore(
+        { port, name: start.name },
+        [
+          {
+            kind: 'output',
+            itemId: start.id,
+            itemName: start.name,
+            role: start.role,
+            portIndex: index,
+            description: portDescription(port, 'output'),
+            efficiency: port.efficiency ?? 1,
+          },
+        ],
+        new Set([start.id]),
+        new Set(),
+        0,
+        [],
+      );
+    });
+  }
+
+  const startKinds = new Map<string, string>();
+  for (const s of starts) {
+    for (const p of s.ports) if (isOutput(p)) startKinds.set(`${p.kind}:${p.label ?? ''}`, withArticle(p.kind, p.label));
+  }
+
+  const result: DeviceChargingPaths[] = devices.map((device) => {
+    const all = found.get(device.id) as ChargingPath[];
+    // A path that is the tail of another (storage → device inside panel → storage → device) is not listed.
+    const keys = all.map((p) => p.steps.map(stepKey).join('|'));
+    const tails = new Set<string>();
+    all.forEach((p, k) => {
+      p.steps.forEach((s, i) => {
+        if (i > 0 && s.kind === 'output') tails.add((keys[k] as string).split('|').slice(i).join('|'));
+      });
+    });
+    const paths = all
+      .filter((_, k) => !tails.has(keys[k] as string))
+      .sort((a, b) => b.efficiency - a.efficiency || a.steps.length - b.steps.length);
+    if (paths.length > PATH_SEARCH_LIMITS.pathsPerDevice) truncated = true;
+    const kept = paths.slice(0, PATH_SEARCH_LIMITS.pathsPerDevice);
+    return {
+      itemId: device.id,
+      itemName: device.name,
+      quantity: device.quantity,
+      paths: kept,
+      reasons: kept.length ? [] : reasonsForNoPath(device, starts, startKinds, attempts.get(device.id) ?? []),
+    };
+  });
+
+  return { devices: result, truncated };
+}
+
+const MAX_REASONS = 6;
+
+function reasonsForNoPath(device: Item, starts: Item[], startKinds: Map<string, string>, attempts: Attempt[]): string[] {
+  const inputs = device.ports.filter(isInput);
+  if (inputs.length === 0) return [`${device.name} lists no power input; add its charging or supply port`];
+  if (starts.length === 0) return ['the kit has no battery, bank or panel to draw from'];
+  if (startKinds.size === 0) return ['no battery, bank or panel in the kit lists an output port'];
+  const electrical = [...new Set(attempts.filter((a) => a.joined).flatMap((a) => a.reasons))];
+  if (electrical.length) return electrical.slice(0, MAX_REASONS);
+  const theirs = joinOr([...new Set(inputs.map((p) => portKindLabel(p)))]);
+  const ours = joinOr([...startKinds.values()]);
+  if (inputs.every((p) => p.kind === 'mains-input')) {
+    return [`${device.name} charges only from mains; the kit has no mains outlet`];
+  }
+  return [`no cable or adapter in the kit joins ${ours} to ${device.name}'s ${theirs}`];
+}
