@@ -51,6 +51,9 @@ export function apiHandler<A extends unknown[]>(handler: (...args: A) => Promise
 /** Default cap on a JSON body (the largest real one, a typed-in readings list, is far smaller). */
 export const JSON_MAX_BYTES = 1024 * 1024;
 
+/** Cap for record-sized JSON (a kit of 200 entries is about 60 KB; issue 8 asks for a cap with 413). */
+export const RECORD_JSON_MAX_BYTES = 256 * 1024;
+
 /** True when the request's Content-Type is `type` (parameters such as charset allowed). */
 export function hasMediaType(request: Request, type: string): boolean {
   const declared = (request.headers.get('content-type') ?? '').split(';')[0]?.trim().toLowerCase();

@@ -3,6 +3,7 @@ import { chargeToWh, convert, valueRatios } from '@/lib/measure';
 import { formatQuantity, formatRatio } from '@/lib/gear/format';
 import { resetRateLimits, signInWithPassword, storageStateFor } from './support';
 import { demoAccount } from '@/db/seed/demo-data';
+import { baseURL } from '../../playwright.config';
 
 test.beforeAll(async ({ request }) => {
   await resetRateLimits(request);
@@ -64,7 +65,7 @@ test('a reviewer records a lantern in ounces and mAh at a voltage; drafts stay p
   await expect(other.getByTestId('signed-in-as')).toContainText(reviewer2.name);
   expect((await other.goto(itemUrl))!.status()).toBe(404);
   expect((await other.goto(`/logbook/gear/${slug}/edit`))!.status()).toBe(404);
-  const hiddenPatch = await other.request.patch(`/api/v1/gear/${slug}`, { data: { name: 'Taken over' } });
+  const hiddenPatch = await other.request.patch(`/api/v1/gear/${slug}`, { data: { name: 'Taken over' }, headers: { origin: baseURL } });
   expect(hiddenPatch.status()).toBe(404);
 
   // The author submits; an editor approves.
@@ -80,7 +81,7 @@ test('a reviewer records a lantern in ounces and mAh at a voltage; drafts stay p
   expect((await other.goto(itemUrl))!.status()).toBe(200);
   await expect(other.getByTestId('spec-mass-claimed')).toContainText('348.7 g');
   expect((await other.goto(`/logbook/gear/${slug}/edit`))!.status()).toBe(403);
-  const deniedPatch = await other.request.patch(`/api/v1/gear/${slug}`, { data: { name: 'Taken over' } });
+  const deniedPatch = await other.request.patch(`/api/v1/gear/${slug}`, { data: { name: 'Taken over' }, headers: { origin: baseURL } });
   expect(deniedPatch.status()).toBe(403);
   await other.goto(itemUrl);
   await expect(other.getByTestId('gear-name')).toHaveText(name);

@@ -18,7 +18,7 @@ const { createUser } = await import('@/db/users');
 const { POST } = await import('@/app/api/v1/kits/route');
 
 const seed = process.env.FC_SEED ? Number(process.env.FC_SEED) : undefined;
-const post = (body: string) => POST(new Request('http://localhost:3000/api/v1/kits', { method: 'POST', headers: { 'content-type': 'application/json' }, body }));
+const post = (body: string) => POST(new Request('http://localhost:3000/api/v1/kits', { method: 'POST', headers: { 'content-type': 'application/json', origin: 'http://localhost:3000' }, body }));
 const n = (table: string) => (state.db.$client.prepare(`select count(*) as n from ${table}`).get() as { n: number }).n;
 const stored = () => n('kits') + n('kit_entries');
 

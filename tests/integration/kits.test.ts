@@ -34,7 +34,7 @@ const BASE = 'http://localhost:3000';
 const json = (method: string, path: string, body?: unknown, headers: Record<string, string> = {}) =>
   new Request(`${BASE}${path}`, {
     method,
-    headers: { 'content-type': 'application/json', ...headers },
+    headers: { 'content-type': 'application/json', origin: BASE, ...headers },
     body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
   });
 const params = <T extends Record<string, string>>(p: T) => ({ params: Promise.resolve(p) });
@@ -105,7 +105,7 @@ describe('kits API round trip', () => {
     expect(patched.status).toBe(200);
     expect((await body(patched)).budget.result.closes).toBe(true);
 
-    const mine = await body(await list.GET());
+    const mine = await body(await list.GET(json('GET', '/api/v1/kits')));
     expect(mine.kits.map((k: { id: string }) => k.id)).toContain(id);
     expect(mine.kits.find((k: { id: string }) => k.id === id).entryCount).toBe(5);
 
@@ -158,7 +158,7 @@ describe('kits API round trip', () => {
     expect(counts()).toEqual(before);
     expect(state.db.select({ name: kits.name }).from(kits).where(eq(kits.id, id)).get()?.name).toBe('Three-day camp');
     as(null);
-    expect((await list.GET()).status).toBe(401);
+    expect((await list.GET(json('GET', '/api/v1/kits'))).status).toBe(401);
     expect((await list.POST(json('POST', '/api/v1/kits', campKit()))).status).toBe(401);
   });
 
@@ -217,7 +217,7 @@ describe('bad input: clear 4xx, nothing stored', () => {
     as('reader');
     const before = counts();
     expect((await list.POST(json('POST', '/api/v1/kits', '{"name":'))).status).toBe(400);
-    expect((await list.POST(new Request(`${BASE}/api/v1/kits`, { method: 'POST', headers: { 'content-type': 'text/plain' }, body: '{}' }))).status).toBe(415);
+    expect((await list.POST(new Request(`${BASE}/api/v1/kits`, { method: 'POST', headers: { 'content-type': 'text/plain', origin: BASE }, body: '{}' }))).status).toBe(415);
     expect((await list.POST(json('POST', '/api/v1/kits', campKit(), { origin: 'https://evil.example' }))).status).toBe(403);
     expect(counts()).toEqual(before);
   });

@@ -5,7 +5,7 @@ import type { Db } from '@/db/connection';
 import type { Actor } from '@/db/gear';
 import { addTypedTrial, createFieldTest, deleteTrial, findEditableFieldTest, saveTrialSeries, transitionFieldTest, updateFieldTest } from '@/db/field-tests';
 import { getFieldTestView } from '@/db/field-tests-view';
-import { apiHandler, assertSameOrigin, parseWith, readJson } from '@/lib/http/api';
+import { apiHandler, assertSameOrigin, hasMediaType, parseWith, readJson } from '@/lib/http/api';
 import { AppError } from '@/lib/http/errors';
 import { csvUploadRequestSchema, fieldTestTransitionSchema, typedReadingsUploadSchema } from '@/lib/field-tests/schemas';
 import { parseReadings, typedReadings, type ReadingsError } from '@/lib/readings';
@@ -60,7 +60,10 @@ function readingsRefusal(error: ReadingsError): AppError {
   return new AppError('invalid', error.message, { fields });
 }
 
-function jsonField(form: FormData, name: string): unknown {
+/** Where the upload's small fields come from: the multipart form, or the query string of a text/csv upload. */
+type FieldSource = { get(name: string): FormDataEntryValue | null };
+
+function jsonField(form: FieldSource, name: string): unknown {
   const v = form.get(name);
   if (typeof v !== 'string' || v.trim() === '') return undefined;
   try {
@@ -70,12 +73,12 @@ function jsonField(form: FormData, name: string): unknown {
   }
 }
 
-function textField(form: FormData, name: string): string | undefined {
+function textField(form: FieldSource, name: string): string | undefined {
   const v = form.get(name);
   return typeof v === 'string' && v !== '' ? v : undefined;
 }
 
-function dropRowsField(form: FormData): unknown {
+function dropRowsField(form: FieldSource): unknown {
   const v = textField(form, 'dropRows');
   if (v === undefined) return undefined;
   if (v.trim().startsWith('[')) return jsonField(form, 'dropRows');
@@ -129,11 +132,41 @@ export const handleGetFieldTest = apiHandler(async (db: Db, user: Actor | null, 
   );
 });
 
+function csvUploadRequest(fields: FieldSource) {
+  const offset = textField(fields, 'clockUtcOffsetMinutes');
+  return parseWith(csvUploadRequestSchema, {
+    item: textField(fields, 'item'),
+    label: textField(fields, 'label'),
+    trialId: textField(fields, 'trialId'),
+    selection: jsonField(fields, 'selection'),
+    switchOn: textField(fields, 'switchOn'),
+    clockUtcOffsetMinutes: offset === undefined ? undefined : Number(offset),
+    dropRows: dropRowsField(fields),
+  });
+}
+
+function saveCsvTrial(db: Db, actor: Actor, id: string, bytes: Uint8Array, fileName: string, fields: FieldSource) {
+  const req = csvUploadRequest(fields);
+  const parsed = parseReadings(bytes, { selection: req.selection, switchOn: req.switchOn, clockUtcOffsetMinutes: req.clockUtcOffsetMinutes, dropRows: req.dropRows });
+  if (!parsed.ok) throw readingsRefusal(parsed.error);
+  const saved = saveTrialSeries(db, actor, id, {
+    item: req.item,
+    label: req.label,
+    trialId: req.trialId,
+    samples: parsed.samples,
+    meta: parsed.meta,
+    source: { kind: 'csv', fileName, fileBytes: bytes.byteLength },
+  });
+  return NextResponse.json({ trial: { id: saved.trialId, rows: saved.rows, bytes: saved.bytes, notes: parsed.meta.notes } }, { status: 201, headers: NO_STORE });
+}
+
 /**
- * POST /api/v1/field-tests/{id}/readings — a trial's readings, re-parsed and decided here:
- * multipart/form-data with `file` (a logger CSV) and `item`, `label`, `trialId`?, `selection` (JSON),
- * `switchOn`?, `clockUtcOffsetMinutes`?, `dropRows`? (JSON array or comma list); or application/json
- * typed-in readings (`typedReadingsUploadSchema`). 201 with the trial's id and row count.
+ * POST /api/v1/field-tests/{id}/readings — a trial's readings, re-parsed and decided here, in one of:
+ * - text/csv: the logger file as the body; `item`, `label`, `trialId`?, `selection` (JSON), `switchOn`?,
+ *   `clockUtcOffsetMinutes`?, `dropRows`? in the query string (what a script or `curl --data-binary` sends);
+ * - multipart/form-data: `file` (a logger CSV) and the same fields as form fields (the logbook page, with progress);
+ * - application/json: typed-in readings (`typedReadingsUploadSchema`).
+ * 201 with the trial's id and row count; 415 for any other media type.
  */
 export const handleReadingsUpload = apiHandler(async (db: Db, user: Actor | null, id: string, request: Request, options: { maxBytes?: number } = {}) => {
   assertSameOrigin(request);
@@ -150,10 +183,15 @@ export const handleReadingsUpload = apiHandler(async (db: Db, user: Actor | null
   }
 
   const fileLimit = options.maxBytes ?? readingsMaxBytes();
+  if (hasMediaType(request, 'text/csv')) {
+    const bytes = await readBodyCapped(request, fileLimit, () => tooLarge(fileLimit));
+    const fileName = textField(new URL(request.url).searchParams, 'fileName') ?? 'readings.csv';
+    return saveCsvTrial(db, actor, id, bytes, fileName.slice(0, 200), new URL(request.url).searchParams);
+  }
   const declared = request.headers.get('content-length');
   if (declared !== null && Number(declared) > fileLimit + FORM_OVERHEAD) throw tooLarge(fileLimit);
   if (!/^multipart\/form-data\s*;\s*boundary=/i.test(type)) {
-    throw new AppError('unsupported_media_type', 'Send a logger file as multipart/form-data with the field “file”, or typed-in readings as application/json.');
+    throw new AppError('unsupported_media_type', 'Send a logger file as text/csv (fields in the query string) or as multipart/form-data with the field “file”, or typed-in readings as application/json.');
   }
   const body = await readBodyCapped(request, fileLimit + FORM_OVERHEAD, () => tooLarge(fileLimit));
   let form: FormData;
@@ -168,27 +206,7 @@ export const handleReadingsUpload = apiHandler(async (db: Db, user: Actor | null
   if (file.name && /\.[A-Za-z0-9]{1,5}$/.test(file.name) && !CSV_EXTENSIONS.test(file.name)) {
     throw new AppError('unsupported_media_type', `“${file.name}” is not a CSV file: upload the logger’s CSV (or TSV / TXT) export.`);
   }
-  const req = parseWith(csvUploadRequestSchema, {
-    item: textField(form, 'item'),
-    label: textField(form, 'label'),
-    trialId: textField(form, 'trialId'),
-    selection: jsonField(form, 'selection'),
-    switchOn: textField(form, 'switchOn'),
-    clockUtcOffsetMinutes: textField(form, 'clockUtcOffsetMinutes') === undefined ? undefined : Number(textField(form, 'clockUtcOffsetMinutes')),
-    dropRows: dropRowsField(form),
-  });
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  const parsed = parseReadings(bytes, { selection: req.selection, switchOn: req.switchOn, clockUtcOffsetMinutes: req.clockUtcOffsetMinutes, dropRows: req.dropRows });
-  if (!parsed.ok) throw readingsRefusal(parsed.error);
-  const saved = saveTrialSeries(db, actor, id, {
-    item: req.item,
-    label: req.label,
-    trialId: req.trialId,
-    samples: parsed.samples,
-    meta: parsed.meta,
-    source: { kind: 'csv', fileName: file.name || 'readings.csv', fileBytes: file.size },
-  });
-  return NextResponse.json({ trial: { id: saved.trialId, rows: saved.rows, bytes: saved.bytes, notes: parsed.meta.notes } }, { status: 201, headers: NO_STORE });
+  return saveCsvTrial(db, actor, id, new Uint8Array(await file.arrayBuffer()), file.name || 'readings.csv', form);
 });
 
 /** POST /api/v1/field-tests/{id}/trials — JSON `typedTrialSchema` (typed values such as a scale reading). */

@@ -1,7 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db';
 import { createGear } from '@/db/gear';
-import { requireRole } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler, readJson } from '@/lib/http/api';
 import { gearPath } from '@/lib/gear/paths';
 
@@ -12,7 +12,7 @@ export { handleGearList as GET } from '@/lib/browse/handlers';
 
 /** Create a draft gear item: JSON body of `gearInputSchema` (lib/gear/schemas.ts); 201 with its slug and page. */
 export const POST = apiHandler(async (request: Request) => {
-  const user = await requireRole('reviewer');
+  const user = await requireApiCaller(request, { scope: 'write', role: 'reviewer' });
   const body = await readJson(request);
   const { slug } = createGear(getDb(), user, body);
   const path = gearPath(slug);

@@ -1,7 +1,7 @@
 import { NextResponse } from 'next/server';
 import { getDb } from '@/db';
 import { findEditableGear, updateGear } from '@/db/gear';
-import { requireUser } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler, readJson } from '@/lib/http/api';
 import { gearPath } from '@/lib/gear/paths';
 
@@ -17,7 +17,7 @@ export { handleGearItem as GET } from '@/lib/browse/handlers';
  */
 export const PATCH = apiHandler(async (request: Request, context: { params: Promise<{ slug: string }> }) => {
   const { slug } = await context.params;
-  const user = await requireUser();
+  const user = await requireApiCaller(request, { scope: 'write' });
   findEditableGear(getDb(), slug, user); // 404/403 before the body is read (status table order)
   const body = await readJson(request);
   const result = updateGear(getDb(), user, slug, body);

@@ -1,5 +1,5 @@
 import { getDb } from '@/db';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { handleReadingsUpload } from '../../handlers';
 
@@ -10,5 +10,5 @@ export const dynamic = 'force-dynamic';
  * `switchOn`, `dropRows`) or application/json typed-in readings. The server re-parses and decides.
  */
 export const POST = apiHandler(async (request: Request, context: { params: Promise<{ id: string }> }) =>
-  handleReadingsUpload(getDb(), await getCurrentUser(), (await context.params).id, request),
+  handleReadingsUpload(getDb(), await requireApiCaller(request, { scope: 'write' }), (await context.params).id, request),
 );

@@ -1,5 +1,5 @@
 import { getDb } from '@/db';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { handleTypedTrial } from '../../handlers';
 
@@ -7,5 +7,5 @@ export const dynamic = 'force-dynamic';
 
 /** Add a trial of typed values (JSON body of `typedTrialSchema`), e.g. a scale reading. */
 export const POST = apiHandler(async (request: Request, context: { params: Promise<{ id: string }> }) =>
-  handleTypedTrial(getDb(), await getCurrentUser(), (await context.params).id, request),
+  handleTypedTrial(getDb(), await requireApiCaller(request, { scope: 'write' }), (await context.params).id, request),
 );

@@ -1,5 +1,5 @@
 import { getDb } from '@/db';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { optionalApiCaller, requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { handlePhotoList, handlePhotoUpload } from '@/lib/photos/handlers';
 
@@ -8,11 +8,11 @@ export const dynamic = 'force-dynamic';
 /** Upload one photo: multipart/form-data, field `file` (≤ 15 MB; JPEG, PNG, WebP, AVIF) and optional `alt`. */
 export const POST = apiHandler(async (request: Request, context: { params: Promise<{ slug: string }> }) => {
   const { slug } = await context.params;
-  return handlePhotoUpload(getDb(), await getCurrentUser(), slug, request);
+  return handlePhotoUpload(getDb(), await requireApiCaller(request, { scope: 'write' }), slug, request);
 });
 
 /** The item's photos with their variant URLs, srcset and alt text. */
-export const GET = apiHandler(async (_request: Request, context: { params: Promise<{ slug: string }> }) => {
+export const GET = apiHandler(async (request: Request, context: { params: Promise<{ slug: string }> }) => {
   const { slug } = await context.params;
-  return handlePhotoList(getDb(), await getCurrentUser(), slug);
+  return handlePhotoList(getDb(), await optionalApiCaller(request), slug);
 });

@@ -1,5 +1,5 @@
 import { getDb } from '@/db';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { handleTrialDelete } from '../../../handlers';
 
@@ -8,5 +8,5 @@ export const dynamic = 'force-dynamic';
 /** Delete a trial of the author's draft. */
 export const DELETE = apiHandler(async (request: Request, context: { params: Promise<{ id: string; trialId: string }> }) => {
   const { id, trialId } = await context.params;
-  return handleTrialDelete(getDb(), await getCurrentUser(), id, trialId, request);
+  return handleTrialDelete(getDb(), await requireApiCaller(request, { scope: 'write' }), id, trialId, request);
 });

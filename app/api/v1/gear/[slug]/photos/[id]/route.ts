@@ -1,5 +1,5 @@
 import { getDb } from '@/db';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { requireApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { handlePhotoAltUpdate, handlePhotoDelete } from '@/lib/photos/handlers';
 
@@ -10,11 +10,11 @@ type Context = { params: Promise<{ slug: string; id: string }> };
 /** Change a photo's alt text: JSON `{ "alt": "…" }`. */
 export const PATCH = apiHandler(async (request: Request, context: Context) => {
   const { slug, id } = await context.params;
-  return handlePhotoAltUpdate(getDb(), await getCurrentUser(), slug, id, request);
+  return handlePhotoAltUpdate(getDb(), await requireApiCaller(request, { scope: 'write' }), slug, id, request);
 });
 
 /** Delete a photo and its stored files. */
 export const DELETE = apiHandler(async (request: Request, context: Context) => {
   const { slug, id } = await context.params;
-  return handlePhotoDelete(getDb(), await getCurrentUser(), slug, id, request);
+  return handlePhotoDelete(getDb(), await requireApiCaller(request, { scope: 'write' }), slug, id, request);
 });
