@@ -9,6 +9,7 @@ import { registerFieldTests } from './paths/field-tests';
 import { registerGearWrites } from './paths/gear';
 import { registerKits } from './paths/kits';
 import { registerPhotos } from './paths/photos';
+import { registerPublicReads } from './paths/public-reads';
 
 export type OpenApiDocument = ReturnType<OpenApiGeneratorV31['generateDocument']>;
 
@@ -20,8 +21,7 @@ export interface ApiArea {
 }
 
 export const API_AREAS: ApiArea[] = [
-  // Helper A (public reads: GET gear list/detail, compare, reviews) enables this line with lib/openapi/paths/public-reads.ts:
-  // { tag: 'Browse and reviews', description: 'Public reads of the catalog and the published reviews.', register: registerPublicReads },
+  { tag: 'Browse and reviews', description: 'Public reads of the catalog and the published reviews.', register: registerPublicReads },
   { tag: 'Gear', description: 'Record gear items and change them (reviewers; editors for any item).', register: registerGearWrites },
   { tag: 'Photos', description: 'Photos of a gear item: list, upload, describe, delete.', register: registerPhotos },
   { tag: 'Field tests', description: 'Field-test records, their trials and readings, and the review workflow.', register: registerFieldTests },

@@ -45,8 +45,8 @@ export type ErrorStatus = 400 | 401 | 403 | 404 | 409 | 413 | 415 | 422 | 429 | 
 /** What each status means in this API (the status table of lib/http/errors.ts). */
 export const ERROR_MEANING: Record<ErrorStatus, string> = {
   400: 'Malformed request: a bad query parameter, or a body that is not valid JSON / multipart.',
-  401: 'No account: send a session cookie or an `Authorization: Bearer` personal token.',
-  403: 'Not allowed: the target is visible but not yours to change, the role is too low, or the request came from another site.',
+  401: 'No account: send an `Authorization: Bearer` personal token (or use the site’s session); also for a token that is unknown, revoked or whose account is disabled.',
+  403: 'Not allowed: the target is visible but not yours to change, the role is too low, the token is read-only, or a session request did not come from this site.',
   404: 'No such resource, or the caller may not see it.',
   409: 'The resource is in a state that forbids this (for example in review and locked).',
   413: 'The body or file is too large.',

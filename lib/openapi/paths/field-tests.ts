@@ -77,9 +77,8 @@ function selectionJsonSchema() {
   return schema;
 }
 
-/** The multipart form of a logger upload: the file plus the fields of `csvUploadRequestSchema`, each as text. */
-const readingsForm = z.object({
-  file: z.string().meta({ format: 'binary', contentMediaType: 'text/csv', description: 'The logger’s CSV (or TSV / TXT) export, UTF-8; at most READINGS_MAX_BYTES (20 MB by default).' }),
+/** The trial's fields besides the file (`csvUploadRequestSchema`), each as text: multipart fields, or the query of a text/csv upload. */
+const trialTextFields = {
   item: csvUploadRequestSchema.shape.item.meta({ description: 'Slug of one of the test’s items.' }),
   label: z.string().max(80).optional().meta({ description: 'Trial label, e.g. “run 2”.' }),
   trialId: z.string().max(100).optional().meta({ description: 'Replace this trial’s series instead of adding a trial.' }),
@@ -90,6 +89,17 @@ const readingsForm = z.object({
   switchOn: readingsParseRequestSchema.shape.switchOn.meta({ description: 'Clock time the device was switched on (t = 0) for clock-stamped logs.' }),
   clockUtcOffsetMinutes: z.string().regex(/^-?\d+$/).optional().meta({ description: 'The logger clock’s offset from UTC in minutes (−840 to 840).' }),
   dropRows: z.string().optional().meta({ description: 'Rows (1-based) to leave out: a JSON array or a comma list.' }),
+};
+
+const readingsForm = z.object({
+  file: z.string().meta({ format: 'binary', contentMediaType: 'text/csv', description: 'The logger’s CSV (or TSV / TXT) export, UTF-8; at most READINGS_MAX_BYTES (20 MB by default).' }),
+  ...trialTextFields,
+});
+
+/** With a text/csv body the same fields travel in the query string (all optional here: `item` is checked by the handler, 422 when missing). */
+const readingsQuery = z.object({
+  ...Object.fromEntries(Object.entries(trialTextFields).map(([k, v]) => [k, v.optional()])),
+  fileName: z.string().max(200).optional().meta({ description: 'Name to keep with the trial (default readings.csv).' }),
 });
 
 /** /api/v1/field-tests… (app/api/v1/field-tests/handlers.ts). */
@@ -118,7 +128,7 @@ export function registerFieldTests(registry: OpenAPIRegistry): void {
     request: { params: testParams },
     responses: {
       200: { description: 'The field test.', content: { 'application/json': { schema: fieldTestViewSchema } } },
-      ...errorResponses(404),
+      ...errorResponses(401, 404),
     },
   });
 
@@ -142,13 +152,15 @@ export function registerFieldTests(registry: OpenAPIRegistry): void {
     tags: [TAG],
     summary: 'Upload a trial’s readings',
     description:
-      'A logger file as `multipart/form-data` (field `file` plus the trial’s fields), or a handful of typed-in readings as `application/json`. The server parses the file again and decides; refused rows are listed in `error.fields.rows` and their numbers in `error.fields.dropRows`. A binary or non-UTF-8 file is 415; too many rows 413.',
+      'A logger file as the whole body (`text/csv`, the trial’s fields in the query string: only with text/csv), or as `multipart/form-data` (field `file` plus the same fields), or a handful of typed-in readings as `application/json`. The server parses the file again and decides; refused rows are listed in `error.fields.rows` and their numbers in `error.fields.dropRows`. A binary or non-UTF-8 file is 415; too many rows 413.',
     security: SIGNED_IN,
     request: {
       params: testParams,
+      query: readingsQuery,
       body: {
         required: true,
         content: {
+          'text/csv': { schema: z.string().meta({ description: 'The logger’s CSV (or TSV / TXT) export as it is, UTF-8; at most READINGS_MAX_BYTES (20 MB by default).' }) },
           'multipart/form-data': { schema: readingsForm },
           'application/json': { schema: typedReadingsUploadSchema },
         },

@@ -39,7 +39,7 @@ export function registerGearWrites(registry: OpenAPIRegistry): void {
         headers: z.object({ Location: z.string() }),
         content: { 'application/json': { schema: createdItem } },
       },
-      ...errorResponses(400, 401, 403, 415, 422),
+      ...errorResponses(400, 401, 403, 413, 415, 422, 503),
     },
   });
 
@@ -54,7 +54,7 @@ export function registerGearWrites(registry: OpenAPIRegistry): void {
     request: { params: z.object({ slug: slugParam }), body: { required: true, content: { 'application/json': { schema: gearPatchSchema } } } },
     responses: {
       200: { description: 'Saved.', content: { 'application/json': { schema: changedItem } } },
-      ...errorResponses(400, 401, 403, 404, 409, 415, 422),
+      ...errorResponses(400, 401, 403, 404, 409, 413, 415, 422, 503),
     },
   });
 }

@@ -185,7 +185,7 @@ export function registerKits(registry: OpenAPIRegistry): void {
     request: { params: z.object({ token: z.string().min(22).max(128).meta({ description: 'The share token from the link.' }) }) },
     responses: {
       200: { ...privateNoStore, description: 'The kit (no share token).', content: { 'application/json': { schema: kitResponseSchema } } },
-      ...errorResponses(404),
+      ...errorResponses(401, 404),
     },
   });
 }

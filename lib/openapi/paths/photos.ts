@@ -45,7 +45,7 @@ export function registerPhotos(registry: OpenAPIRegistry): void {
     request: { params: z.object({ slug: slugParam }) },
     responses: {
       200: { description: 'The photos with their variant URLs.', content: { 'application/json': { schema: photoListSchema } } },
-      ...errorResponses(404),
+      ...errorResponses(401, 404),
     },
   });
 
@@ -62,7 +62,7 @@ export function registerPhotos(registry: OpenAPIRegistry): void {
     },
     responses: {
       201: { description: 'Stored; WebP variants made.', content: { 'application/json': { schema: photoOneSchema } } },
-      ...errorResponses(400, 401, 403, 404, 409, 413, 415, 422),
+      ...errorResponses(400, 401, 403, 404, 409, 413, 415, 422, 503),
     },
   });
 
@@ -75,7 +75,7 @@ export function registerPhotos(registry: OpenAPIRegistry): void {
     request: { params: photoParams, body: { required: true, content: { 'application/json': { schema: photoAltUpdateSchema } } } },
     responses: {
       200: { description: 'Saved.', content: { 'application/json': { schema: photoOneSchema } } },
-      ...errorResponses(400, 401, 403, 404, 409, 415, 422),
+      ...errorResponses(400, 401, 403, 404, 409, 413, 415, 422, 503),
     },
   });
 
@@ -89,7 +89,7 @@ export function registerPhotos(registry: OpenAPIRegistry): void {
     request: { params: photoParams },
     responses: {
       204: { description: 'Deleted.' },
-      ...errorResponses(401, 403, 404, 409),
+      ...errorResponses(401, 403, 404, 409, 503),
     },
   });
 }
