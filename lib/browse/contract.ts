@@ -61,6 +61,8 @@ export interface CompareCell {
   provenance: string | null;
   /** Best in its row (direction-aware; ties all best; false when the row has no direction). */
   best: boolean;
+  /** Present only with `units=imperial` for masses, lengths and temperatures (as on Figure). */
+  imperial?: { value: number; unit: string };
 }
 
 export interface CompareRow {
@@ -84,4 +86,45 @@ export interface CompareGroup {
 export interface CompareResponse {
   items: Pick<GearSummary, 'slug' | 'name' | 'maker' | 'category' | 'kind' | 'path' | 'photo' | 'price'>[];
   groups: CompareGroup[];
+}
+
+/** A published review in `GET /api/v1/reviews` (the latest public revision, never a draft). */
+export interface ReviewSummary {
+  slug: string;
+  title: string;
+  summary: string;
+  verdict: string;
+  author: string;
+  /** How the reviewer got the gear (`bought-retail`, `loaned-by-maker` …), null when not stated. */
+  disclosure: string | null;
+  /** ISO 8601: when revision 1 was published. */
+  firstPublishedAt: string | null;
+  /** ISO 8601: when the shown revision was published. */
+  updatedAt: string | null;
+  revision: number;
+  /** Public page of the review. */
+  path: string;
+  /** Public gear items the review covers. */
+  items: { slug: string; name: string; path: string }[];
+}
+
+export interface ReviewListResponse {
+  items: ReviewSummary[];
+  /** Opaque; pass back as `cursor` for the next page; null on the last page. */
+  nextCursor: string | null;
+  /** Reviews matching the filter (all pages). */
+  total: number;
+}
+
+/** `GET /api/v1/reviews/{slug}`: the latest public revision with its Markdown body. */
+export interface ReviewDetail extends ReviewSummary {
+  /** `retracted` reviews stay readable with the editor's public note. */
+  state: 'published' | 'retracted';
+  /** Markdown source of the body. */
+  body: string;
+  disclosureNote: string;
+  correctionNote: string | null;
+  retraction: { note: string; at: string } | null;
+  /** Public revisions, newest first. */
+  history: { number: number; state: string; publishedAt: string | null; correctionNote: string | null }[];
 }

@@ -1,10 +1,13 @@
 import 'server-only';
 import { getDb } from '@/db';
 import { getGearSummary, listGear, type Caller } from '@/db/browse';
-import { getCurrentUser } from '@/lib/auth/guard';
+import { compareGear } from '@/db/compare';
+import { getReviewPage, listPublishedReviews } from '@/db/reviews';
+import { optionalApiCaller } from '@/lib/auth/api-caller';
 import { apiHandler } from '@/lib/http/api';
 import { cachedJson } from '@/lib/http/cache';
-import { parseGearItemQuery, parseGearListQuery } from './query';
+import { parseCompareQuery, parseGearItemQuery, parseGearListQuery, parseReviewItemQuery, parseReviewListQuery } from './query';
+import { pageReviews, reviewDetail } from './reviews';
 
 /*
  * The GET handlers of the public read API, re-exported by the route files (app/api/v1/gear/route.ts,
@@ -15,15 +18,16 @@ import { parseGearItemQuery, parseGearListQuery } from './query';
 
 type SlugContext = { params: Promise<{ slug: string }> };
 
-async function optionalCaller(): Promise<Caller> {
-  const user = await getCurrentUser();
-  return user ? { id: user.id, role: user.role } : null;
+/** A session or `Authorization: Bearer` token (a bad token is a 401, never a silent guest). */
+async function optionalCaller(request: Request): Promise<Caller> {
+  const caller = await optionalApiCaller(request);
+  return caller ? { id: caller.id, role: caller.role } : null;
 }
 
 /** `GET /api/v1/gear`: a GearListResponse. */
 export const handleGearList = apiHandler(async (request: Request) => {
   const query = parseGearListQuery(new URL(request.url).searchParams);
-  const caller = await optionalCaller();
+  const caller = await optionalCaller(request);
   return cachedJson(request, listGear(getDb(), query, caller), caller !== null);
 });
 
@@ -31,6 +35,28 @@ export const handleGearList = apiHandler(async (request: Request) => {
 export const handleGearItem = apiHandler(async (request: Request, context: SlugContext) => {
   const { slug } = await context.params;
   const { imperial } = parseGearItemQuery(new URL(request.url).searchParams);
-  const caller = await optionalCaller();
+  const caller = await optionalCaller(request);
   return cachedJson(request, getGearSummary(getDb(), slug, caller, { imperial }), caller !== null);
+});
+
+/** `GET /api/v1/compare?items=a,b,c`: a CompareResponse; 404 when an item is unknown or not visible. */
+export const handleCompare = apiHandler(async (request: Request) => {
+  const query = parseCompareQuery(new URL(request.url).searchParams);
+  const caller = await optionalCaller(request);
+  return cachedJson(request, compareGear(getDb(), query.items, caller, { imperial: query.imperial }), caller !== null);
+});
+
+/** `GET /api/v1/reviews`: published reviews, newest first (ReviewListResponse). */
+export const handleReviewList = apiHandler(async (request: Request) => {
+  const query = parseReviewListQuery(new URL(request.url).searchParams);
+  const caller = await optionalCaller(request);
+  return cachedJson(request, pageReviews(listPublishedReviews(getDb(), Number.MAX_SAFE_INTEGER), query), caller !== null);
+});
+
+/** `GET /api/v1/reviews/{slug}`: the public revision of a review (drafts never, whoever asks); 404 otherwise. */
+export const handleReview = apiHandler(async (request: Request, context: SlugContext) => {
+  const { slug } = await context.params;
+  parseReviewItemQuery(new URL(request.url).searchParams);
+  const caller = await optionalCaller(request);
+  return cachedJson(request, reviewDetail(getReviewPage(getDb(), slug, null)), caller !== null);
 });

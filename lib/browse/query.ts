@@ -193,6 +193,9 @@ export const reviewListQuerySchema = z.strictObject({
   cursor: cursorParam.optional(),
 });
 
+/** `GET /api/v1/reviews/{slug}`: no parameters. */
+export const reviewItemQuerySchema = z.strictObject({});
+
 export interface ReviewListQuery {
   gear?: string;
   limit: number;
@@ -278,4 +281,8 @@ export function parseCompareQuery(params: URLSearchParams): CompareQuery {
 export function parseReviewListQuery(params: URLSearchParams): ReviewListQuery {
   const parsed = parseParams(reviewListQuerySchema, params);
   return { gear: parsed.gear, limit: parsed.limit ?? DEFAULT_LIMIT, cursor: parsed.cursor };
+}
+
+export function parseReviewItemQuery(params: URLSearchParams): void {
+  parseParams(reviewItemQuerySchema, params);
 }

@@ -5,6 +5,7 @@
  */
 import { OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { createRegistry, type OpenAPIRegistry } from './registry';
+import { registerApiDocument } from './paths/api-document';
 import { registerFieldTests } from './paths/field-tests';
 import { registerGearWrites } from './paths/gear';
 import { registerKits } from './paths/kits';
@@ -26,6 +27,7 @@ export const API_AREAS: ApiArea[] = [
   { tag: 'Photos', description: 'Photos of a gear item: list, upload, describe, delete.', register: registerPhotos },
   { tag: 'Field tests', description: 'Field-test records, their trials and readings, and the review workflow.', register: registerFieldTests },
   { tag: 'Kits', description: 'Kits and their power budget: your own kits, duplicates and share links.', register: registerKits },
+  { tag: 'This document', description: 'The OpenAPI document itself, for code generators and API tools.', register: registerApiDocument },
   // Helper B (personal tokens and the bearer security scheme) enables this line with lib/openapi/paths/auth.ts:
   // { tag: 'Personal tokens', description: 'Personal API tokens for scripts.', register: registerAuth },
 ];

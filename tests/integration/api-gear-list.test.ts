@@ -260,6 +260,20 @@ describe('GET /api/v1/gear: units=imperial adds display values only', () => {
   });
 });
 
+describe('GET /api/v1/gear: personal tokens', () => {
+  it('reads as the token’s owner (own drafts, private caching) and refuses a bad token with 401', async () => {
+    const { createApiToken, revokeApiToken } = await import('@/db/api-tokens');
+    const { token, summary } = createApiToken(state.db, seed.users.author, { name: 'logger', scope: 'read' });
+    const mine = await list('?category=light', { authorization: `Bearer ${token}` });
+    expect(mine.status).toBe(200);
+    expect(mine.body.items.find((i) => i.slug === seed.slug.lamp)?.status).toBe('draft');
+    expect(mine.res.headers.get('cache-control')).toBe('private, no-store');
+    revokeApiToken(state.db, seed.users.author.id, summary.id);
+    expect((await list('?category=light', { authorization: `Bearer ${token}` })).status).toBe(401);
+    expect((await list('', { authorization: 'Bearer not-a-token' })).status).toBe(401);
+  });
+});
+
 describe('GET /api/v1/gear: caching', () => {
   it('sends public max-age=60 with a strong ETag to anonymous callers and 304 on a match', async () => {
     const first = await list('?sort=mass');

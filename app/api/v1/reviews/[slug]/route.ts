@@ -1,0 +1,4 @@
+export const dynamic = 'force-dynamic';
+
+/** The public revision of one review with its Markdown body; 404 for drafts and unknown slugs. */
+export { handleReview as GET } from '@/lib/browse/handlers';
