@@ -3,6 +3,8 @@ import { LogoMark } from './logo-mark';
 import { signOutAction } from '@/lib/auth/actions';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { hasRole, ROLE_LABELS } from '@/lib/auth/roles';
+import { UnitsToggle } from './units-toggle';
+import { getUnitSystem } from '@/lib/units/preference';
 
 const readerLinks = [
   { href: '/gear', label: 'Browse' },
@@ -17,6 +19,7 @@ const readerLinks = [
 
 export async function SiteHeader() {
   const user = await getCurrentUser();
+  const units = await getUnitSystem();
   const roleLinks = [
     hasRole(user, 'reviewer') && { href: '/logbook', label: 'Logbook' },
     hasRole(user, 'reviewer') && { href: '/write', label: 'Write' },
@@ -46,11 +49,15 @@ export async function SiteHeader() {
           </ul>
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm">
+          <UnitsToggle current={units} />
           {user ? (
             <>
               <span className="hidden text-slate md:inline" data-testid="signed-in-as">
                 {user.name} · <span className="font-mono text-xs uppercase tracking-wide">{ROLE_LABELS[user.role]}</span>
               </span>
+              <Link href="/account" className="rounded-md px-2 py-1.5 font-semibold hover:bg-card" data-testid="account-link">
+                Account
+              </Link>
               <form action={signOutAction}>
                 <button type="submit" className="rounded-md border border-rule px-3 py-1.5 font-semibold hover:bg-card">
                   Sign out

@@ -4,6 +4,7 @@ import { getDb } from '@/db';
 import { listOwnKits, readableCatalog } from '@/db/kits';
 import { GuestKitImport } from '@/components/kits/guest-kit-import';
 import { KitEditor } from '@/components/kits/kit-editor';
+import { getUnitSystem } from '@/lib/units/preference';
 import { KitIntro } from '@/components/kits/kit-intro';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { emptyKit } from '@/lib/kits';
@@ -46,7 +47,7 @@ export default async function KitsPage() {
         <h2 id="new-kit" className="mb-4 text-2xl font-bold">
           {user ? 'Start a new kit' : 'Build a kit'}
         </h2>
-        <KitEditor catalog={catalog} initial={emptyKit()} mode={user ? { kind: 'new' } : { kind: 'guest' }} />
+        <KitEditor catalog={catalog} initial={emptyKit()} mode={user ? { kind: 'new' } : { kind: 'guest' }} units={await getUnitSystem()} />
       </section>
     </main>
   );

@@ -2,7 +2,9 @@ import Link from 'next/link';
 import type { SpecLine } from '@/db/gear';
 import { SPECS } from '@/lib/measure';
 import { CLAIM_SOURCE_LABELS, type CategoryDef, type ClaimSource } from '@/lib/gear/categories';
-import { formatSignedPercent, formatSpec } from '@/lib/gear/format';
+import { formatSignedPercent } from '@/lib/gear/format';
+import type { UnitSystem } from '@/lib/units/display';
+import { formatSpecIn } from '@/lib/units/format';
 
 function specLabel(def: CategoryDef, line: SpecLine): string {
   const fromCategory = line.mode === '' ? def.specs.find((s) => s.key === line.key)?.label : undefined;
@@ -15,7 +17,7 @@ function specLabel(def: CategoryDef, line: SpecLine): string {
 }
 
 /** Claimed and measured figures side by side, with measured ÷ claimed as a signed percentage. */
-export function SpecsTable({ def, lines }: { def: CategoryDef; lines: SpecLine[] }) {
+export function SpecsTable({ def, lines, units = 'metric' }: { def: CategoryDef; lines: SpecLine[]; units?: UnitSystem }) {
   const modes = [...new Set(lines.map((l) => l.mode))];
   return (
     <div className="overflow-x-auto rounded-lg border border-rule">
@@ -51,7 +53,7 @@ export function SpecsTable({ def, lines }: { def: CategoryDef; lines: SpecLine[]
                     <td className="px-3 py-2 text-slate" data-testid={`${testId}-claimed`}>
                       {line.claimed ? (
                         <>
-                          <span className="figure font-mono">{formatSpec(line.key, line.claimed.value)}</span>{' '}
+                          <span className="figure font-mono">{formatSpecIn(line.key, line.claimed.value, units)}</span>{' '}
                           <span className="ml-1 rounded border border-rule px-1 text-[10px] uppercase tracking-wide">claimed</span>{' '}
                           <span className="text-xs">· {CLAIM_SOURCE_LABELS[line.claimed.source as ClaimSource] ?? line.claimed.source}</span>
                         </>
@@ -63,8 +65,7 @@ export function SpecsTable({ def, lines }: { def: CategoryDef; lines: SpecLine[]
                       {line.measured ? (
                         <>
                           <span className="figure font-mono font-semibold">
-                            {formatSpec(line.key, line.measured.value)}
-                            {line.measured.sd !== null ? ` ± ${formatSpec(line.key, line.measured.sd)}` : ''}
+                            {formatSpecIn(line.key, line.measured.value, units, line.measured.sd)}
                           </span>
                           {line.measured.n !== null && line.measured.n > 1 ? <span className="ml-1 text-xs text-slate">(n = {line.measured.n})</span> : null}
                           {line.measured.fieldTestId ? (

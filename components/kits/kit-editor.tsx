@@ -28,6 +28,7 @@ import { EntryRow, optionalNumber, requiredNumber } from './entry-row';
 import { fmtPercent } from './format';
 import { KitCautions } from './kit-cautions';
 import { KitTotalsPanel } from './kit-totals';
+import type { UnitSystem } from '@/lib/units/display';
 import { PeakSunHelp } from './peak-sun-help';
 
 export const GUEST_KIT_KEY = 'trailbench.guestKit.v1';
@@ -56,7 +57,7 @@ function download(name: string, text: string) {
 }
 
 /** Builds and edits a kit; the budget and totals recompute as you type. */
-export function KitEditor({ catalog, initial, mode }: { catalog: KitCatalog; initial: KitInput; mode: EditorMode }) {
+export function KitEditor({ catalog, initial, mode, units = 'metric' }: { catalog: KitCatalog; initial: KitInput; mode: EditorMode; units?: UnitSystem }) {
   const router = useRouter();
   const form = useForm<KitFormValues, unknown, KitInput>({ resolver: zodResolver(kitInputSchema), defaultValues: initial, mode: 'onChange' });
   const { register, control, handleSubmit, setValue, setError, reset, formState } = form;
@@ -360,7 +361,7 @@ export function KitEditor({ catalog, initial, mode }: { catalog: KitCatalog; ini
       </div>
 
       <div className="space-y-6">
-        <KitTotalsPanel totals={totals} />
+        <KitTotalsPanel totals={totals} units={units} />
         <BudgetPanel budget={budget} tripDays={kit.tripDays} />
         <KitCautions />
       </div>

@@ -1,8 +1,11 @@
 import type { KitTotals } from '@/lib/kits';
+import type { UnitSystem } from '@/lib/units/display';
+import { formatFigure } from '@/lib/units/format';
 import { fmt, fmtMass, fmtMoney } from './format';
 
 /** Mass with a per-category breakdown, price per currency, light output and stored energy. */
-export function KitTotalsPanel({ totals }: { totals: KitTotals }) {
+export function KitTotalsPanel({ totals, units = 'metric' }: { totals: KitTotals; units?: UnitSystem }) {
+  const mass = (grams: number) => (units === 'imperial' ? formatFigure(grams, 'g', 'imperial') : fmtMass(grams));
   return (
     <section aria-labelledby="totals-heading" className="rounded-lg border border-rule bg-card p-4" data-testid="kit-totals">
       <h2 id="totals-heading" className="text-lg font-bold">
@@ -12,7 +15,7 @@ export function KitTotalsPanel({ totals }: { totals: KitTotals }) {
         <div>
           <dt className="font-semibold">Mass</dt>
           <dd className="font-mono tabular-nums" data-testid="total-mass">
-            {fmtMass(totals.massG)}
+            {mass(totals.massG)}
             {totals.massBasis === 'mixed' ? <span className="font-sans text-xs text-slate"> (measured where tested, else claimed or typed)</span> : null}
           </dd>
           {totals.massByGroup.length > 0 ? (
@@ -20,7 +23,7 @@ export function KitTotalsPanel({ totals }: { totals: KitTotals }) {
               <ul className="mt-1 text-xs text-slate">
                 {totals.massByGroup.map((g) => (
                   <li key={g.group}>
-                    {g.label}: <span className="font-mono tabular-nums">{fmtMass(g.massG)}</span>
+                    {g.label}: <span className="font-mono tabular-nums">{mass(g.massG)}</span>
                   </li>
                 ))}
               </ul>

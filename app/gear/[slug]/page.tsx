@@ -17,7 +17,8 @@ import { formatMoney, formatQuantity } from '@/lib/gear/format';
 import { orPageError } from '@/lib/gear/page-errors';
 import { gearEditPath } from '@/lib/gear/paths';
 import { isSpecKey, SPECS, type Chemistry } from '@/lib/measure';
-import { formatSpec } from '@/lib/gear/format';
+import { getUnitSystem } from '@/lib/units/preference';
+import { formatSpecIn } from '@/lib/units/format';
 
 export const dynamic = 'force-dynamic';
 
@@ -40,13 +41,14 @@ export async function generateMetadata({ params }: { params: Promise<{ slug: str
 export default async function GearItemPage({ params }: { params: Promise<{ slug: string }> }) {
   const { slug } = await params;
   const viewer = await getCurrentUser();
+  const units = await getUnitSystem();
   const view = orPageError(() => getGearView(getDb(), slug, viewer));
   const { item, version } = view;
   const def = CATEGORY_DEFS[version.category];
   const price = version.priceMinor !== null && version.priceCurrency ? formatMoney({ amountMinor: version.priceMinor, currency: version.priceCurrency }) : null;
   const lastComment = view.events.find((e) => e.toState === 'changes-requested')?.comment;
   const history = view.insider && viewer ? specHistory(getDb(), slug, viewer) : [];
-  const figure = (key: string, value: number | null) => (value === null ? '—' : isSpecKey(key) ? formatSpec(key, value) : String(value));
+  const figure = (key: string, value: number | null) => (value === null ? '—' : isSpecKey(key) ? formatSpecIn(key, value, units) : String(value));
   const mayManagePhotos = canEditGear(viewer, item);
   const CONTEXT = { edit: 'draft edit', pending: 'pending change', approval: 'approved' } as const;
 
@@ -99,7 +101,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
         <h2 id="specs-heading" className="text-xl font-bold">
           Specs
         </h2>
-        <SpecsTable def={def} lines={view.lines} />
+        <SpecsTable def={def} lines={view.lines} units={units} />
         <dl className="grid gap-x-6 gap-y-2 text-sm sm:grid-cols-2">
           {price ? (
             <div>

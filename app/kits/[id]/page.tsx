@@ -4,6 +4,7 @@ import { notFound } from 'next/navigation';
 import { getDb } from '@/db';
 import { getOwnKit, readableCatalog } from '@/db/kits';
 import { KitEditor } from '@/components/kits/kit-editor';
+import { getUnitSystem } from '@/lib/units/preference';
 import { requirePageUser } from '@/lib/auth/guard';
 import { AppError } from '@/lib/http/errors';
 import type { KitInput } from '@/lib/kits';
@@ -55,7 +56,7 @@ export default async function KitPage({ params, searchParams }: { params: Promis
         </p>
       ) : null}
       <div className="mt-6">
-        <KitEditor catalog={{ ...readableCatalog(db, user), ...catalog }} initial={initial} mode={{ kind: 'edit', id: kit.id, shareToken: kit.shareToken }} />
+        <KitEditor catalog={{ ...readableCatalog(db, user), ...catalog }} initial={initial} mode={{ kind: 'edit', id: kit.id, shareToken: kit.shareToken }} units={await getUnitSystem()} />
       </div>
     </main>
   );

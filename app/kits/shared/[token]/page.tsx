@@ -7,6 +7,7 @@ import { BudgetPanel } from '@/components/kits/budget-panel';
 import { fmt, fmtPercent } from '@/components/kits/format';
 import { KitCautions } from '@/components/kits/kit-cautions';
 import { KitTotalsPanel } from '@/components/kits/kit-totals';
+import { getUnitSystem } from '@/lib/units/preference';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { AppError } from '@/lib/http/errors';
 import { CHEMISTRY_LABELS, entryName, kitBudget, kitTotals, resolveEntries, SKY_LABELS } from '@/lib/kits';
@@ -89,7 +90,7 @@ export default async function SharedKitPage({ params }: { params: Promise<{ toke
               <dd>{kit.conversionEfficiency ?? '0.9 (default)'}</dd>
             </dl>
           </section>
-          <KitTotalsPanel totals={totals} />
+          <KitTotalsPanel totals={totals} units={await getUnitSystem()} />
         </div>
         <div className="space-y-6">
           <BudgetPanel budget={budget} tripDays={kit.tripDays} />
