@@ -16,12 +16,15 @@
 import { randomUUID } from 'node:crypto';
 import { and, asc, desc, eq, inArray, isNotNull, or } from 'drizzle-orm';
 import type { Db } from './connection';
-import { gearItems, notificationSettings, reviewItems, reviewRevisions, reviews, reviewStateEvents, specs, users, type Role } from './schema';
+import { gearItems, notificationSettings, reviewBuyLinks, reviewItems, reviewRevisions, reviews, reviewStateEvents, specs, users, type Role } from './schema';
+import { expireReviewTags } from './reviews-cache-tags';
 import { AppError } from '@/lib/http/errors';
 import { hasRole } from '@/lib/auth/roles';
 import { parseWith } from '@/lib/http/api';
 import { decide, canEditText, availableActions, type WorkflowAction, type WorkflowState } from '@/lib/workflow/transitions';
-import { createReviewSchema, notificationSettingsSchema, reviewDraftSchema, submitProblems, type Disclosure, type NotificationSettings } from '@/lib/reviews/schemas';
+import { createReviewSchema, DISCLOSURE_LABELS, notificationSettingsSchema, reviewDraftSchema, submitProblems, type Disclosure, type NotificationSettings } from '@/lib/reviews/schemas';
+import { buyLinksSchema, type BuyLink } from '@/lib/reviews/buy-links';
+import type { RevisionText } from '@/lib/reviews/diff';
 
 export interface Actor {
   id: string;
@@ -220,6 +223,13 @@ export interface TransitionOutcome {
  * from the public one.
  */
 export function transitionReview(db: Db, actor: Actor, reviewId: string, action: WorkflowAction, comment: string | null = null, now = new Date()): TransitionOutcome {
+  const outcome = transitionInTransaction(db, actor, reviewId, action, comment, now);
+  // Cached public pages (db/reviews-cache.ts) change on publish and retract; a correction's start is included so its page links refresh.
+  if (action === 'publish' || action === 'retract' || action === 'start-correction') expireReviewTags(outcome.slug);
+  return outcome;
+}
+
+function transitionInTransaction(db: Db, actor: Actor, reviewId: string, action: WorkflowAction, comment: string | null, now: Date): TransitionOutcome {
   return db.transaction(
     (tx) => {
       const { review, revisions } = findVisible(tx, 'id', reviewId, actor);
@@ -262,6 +272,8 @@ export function transitionReview(db: Db, actor: Actor, reviewId: string, action:
             updatedAt: now,
           })
           .run();
+        const links = buyLinksOf(tx, target.id);
+        if (links.length) tx.insert(reviewBuyLinks).values(links.map((l, position) => ({ revisionId, position, ...l }))).run();
         writeEvent(tx, revisionId, null, 'draft', actor.id, now, `Correction of revision ${target.number}.`);
         return { ...base, revisionId, revisionNumber: number, to: 'draft' as const };
       }
@@ -365,6 +377,8 @@ export interface ReviewPageData {
   /** For the author and editors: the working revision when it is not the shown one. */
   working: ReviewRevision | null;
   items: ReviewItemRef[];
+  /** Where-to-buy links of the shown revision. */
+  buyLinks: BuyLink[];
   viewerIsAuthor: boolean;
 }
 
@@ -408,8 +422,99 @@ export function getReviewPage(db: Db, slug: string, viewer: Actor | null, revisi
     latestPublicNumber: current?.number ?? null,
     working: privileged && working.id !== shown.id && !isPublicState(working.state) ? working : null,
     items: itemsOf(db, review.id),
+    buyLinks: buyLinksOf(db, shown.id),
     viewerIsAuthor: viewer?.id === review.authorId,
   };
+}
+
+/** Slugs of reviews with a public (published or retracted) revision, each with its public revision numbers: the keys db/reviews-cache.ts may cache. */
+export function listPublicReviewSlugs(db: Db): Record<string, number[]> {
+  const rows = db
+    .select({ slug: reviews.slug, number: reviewRevisions.number })
+    .from(reviewRevisions)
+    .innerJoin(reviews, eq(reviews.id, reviewRevisions.reviewId))
+    .where(inArray(reviewRevisions.state, ['published', 'retracted']))
+    .orderBy(asc(reviewRevisions.number))
+    .all();
+  const out: Record<string, number[]> = {};
+  for (const r of rows) (out[r.slug] ??= []).push(r.number);
+  return out;
+}
+
+/* ------------------------------------------------------------------------------------------------ */
+/* Where to buy                                                                                     */
+/* ------------------------------------------------------------------------------------------------ */
+
+/** Where-to-buy links of one revision, in order. */
+export function buyLinksOf(q: Q, revisionId: string): BuyLink[] {
+  return q
+    .select({ label: reviewBuyLinks.label, url: reviewBuyLinks.url, isAffiliate: reviewBuyLinks.isAffiliate })
+    .from(reviewBuyLinks)
+    .where(eq(reviewBuyLinks.revisionId, revisionId))
+    .orderBy(asc(reviewBuyLinks.position), asc(reviewBuyLinks.id))
+    .all();
+}
+
+/**
+ * Replaces the where-to-buy links of the working revision (lib/reviews/buy-links.ts). The same rules
+ * as the text: only the author, only while the revision is a draft or returned — 404 / 403 / 409 /
+ * 422 in that order, nothing written on any of them. Published links never change: a correction
+ * copies them into its new draft.
+ */
+export function saveBuyLinks(db: Db, actor: Actor, reviewId: string, raw: unknown, now = new Date()): BuyLink[] {
+  return db.transaction(
+    (tx) => {
+      const { review, revisions } = findVisible(tx, 'id', reviewId, actor);
+      const working = latest(revisions);
+      if (actor.id !== review.authorId || !hasRole(actor, 'reviewer')) throw new AppError('forbidden', 'Only the author may change this review.');
+      if (!canEditText(working.state, actor, review.authorId)) throw new AppError('conflict', 'This revision is locked: links change with the text, in a draft or a correction.');
+      const { links } = parseWith(buyLinksSchema, raw);
+      tx.delete(reviewBuyLinks).where(eq(reviewBuyLinks.revisionId, working.id)).run();
+      if (links.length) tx.insert(reviewBuyLinks).values(links.map((l, position) => ({ revisionId: working.id, position, ...l }))).run();
+      tx.update(reviewRevisions).set({ updatedAt: now }).where(eq(reviewRevisions.id, working.id)).run();
+      return links;
+    },
+    { behavior: 'immediate' },
+  );
+}
+
+/* ------------------------------------------------------------------------------------------------ */
+/* Revision diff                                                                                    */
+/* ------------------------------------------------------------------------------------------------ */
+
+export interface ReviewDiffData {
+  slug: string;
+  title: string;
+  from: { number: number; publishedAt: Date | null; state: WorkflowState; text: RevisionText };
+  to: { number: number; publishedAt: Date | null; state: WorkflowState; text: RevisionText };
+  /** Public revision numbers, oldest first (to pick another one). */
+  publicNumbers: number[];
+}
+
+function revisionText(r: ReviewRevision): RevisionText {
+  return {
+    title: r.title,
+    summary: r.summary,
+    verdict: r.verdict,
+    body: r.body,
+    disclosureLabel: r.disclosure ? DISCLOSURE_LABELS[r.disclosure] : 'Not stated',
+    disclosureNote: r.disclosureNote,
+  };
+}
+
+/**
+ * Two public revisions of a review for the reader's comparison: `fromNumber` against the current
+ * public one. Public revisions only, for everyone (drafts are compared on the writing page, not here):
+ * 404 for an unknown review, a review without public revisions, or a revision number that is not public.
+ */
+export function getReviewDiff(db: Db, slug: string, fromNumber: number): ReviewDiffData {
+  const loaded = loadBy(db, 'slug', slug);
+  const publicRevs = loaded?.revisions.filter((r) => isPublicState(r.state)) ?? [];
+  const current = publicRevs.at(-1);
+  const from = publicRevs.find((r) => r.number === fromNumber);
+  if (!loaded || !current || !from) throw new AppError('not_found', NOT_FOUND);
+  const side = (r: ReviewRevision) => ({ number: r.number, publishedAt: r.publishedAt, state: r.state, text: revisionText(r) });
+  return { slug: loaded.review.slug, title: current.title, from: side(from), to: side(current), publicNumbers: publicRevs.map((r) => r.number) };
 }
 
 export interface PublishedReviewRow {

@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { getDb } from '@/db';
-import { listPublishedReviews } from '@/db/reviews';
+import { cachedPublishedReviews } from '@/db/reviews-cache';
 import { formatDate } from '@/lib/reviews/dates';
 import { DISCLOSURE_LABELS } from '@/lib/reviews/schemas';
 
@@ -12,8 +11,9 @@ export const metadata: Metadata = {
 };
 export const dynamic = 'force-dynamic';
 
-export default function ReviewsPage() {
-  const rows = listPublishedReviews(getDb());
+export default async function ReviewsPage() {
+  // Public data from the tagged cache (db/reviews-cache.ts), expired on publish, retract and correction.
+  const rows = await cachedPublishedReviews();
   return (
     <main className="mx-auto w-full max-w-4xl px-4 py-12 sm:px-6">
       <header className="border-b border-rule pb-6">

@@ -1,16 +1,23 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { BuyLinks } from '@/components/reviews/buy-links';
 import { DisclosureNotice } from '@/components/reviews/disclosure';
 import { ReviewBody } from '@/components/reviews/review-body';
 import { StateBadge } from '@/components/reviews/state-badge';
 import { getDb } from '@/db';
-import { getReviewPage } from '@/db/reviews';
+import { canSeeWorkingRevisions, getReviewPage, type Actor, type ReviewPageData } from '@/db/reviews';
+import { cachedPublicReviewPage } from '@/db/reviews-cache';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { formatDate } from '@/lib/reviews/dates';
 import { orPageError } from '@/lib/reviews/page-errors';
 import { siteUrl } from '@/lib/reviews/notify';
 
 export const dynamic = 'force-dynamic';
+
+/** Nothing is built ahead: pages render on demand and their data comes from the tagged cache (db/reviews-cache.ts). */
+export function generateStaticParams(): { slug: string }[] {
+  return [];
+}
 
 interface Props {
   params: Promise<{ slug: string }>;
@@ -22,10 +29,21 @@ function revisionParam(value: string | string[] | undefined): number | undefined
   return Number(value);
 }
 
-export async function generateMetadata({ params }: Props): Promise<Metadata> {
+/**
+ * The public data from the cache for readers; the uncached read for the review's author and editors
+ * (drafts, their links) and for anything not public, which also decides between 404 and a preview.
+ */
+async function loadPage(slug: string, viewer: Actor | null, revision?: number): Promise<ReviewPageData> {
+  const cached = await cachedPublicReviewPage(slug, revision);
+  if (cached && !canSeeWorkingRevisions(viewer, cached.review)) return cached;
+  return orPageError(() => getReviewPage(getDb(), slug, viewer, revision));
+}
+
+export async function generateMetadata({ params, searchParams }: Props): Promise<Metadata> {
   const { slug } = await params;
+  const { revision } = await searchParams;
   try {
-    const page = getReviewPage(getDb(), slug, await getCurrentUser());
+    const page = await loadPage(slug, await getCurrentUser(), revisionParam(revision));
     if (page.isPreview) return { title: page.revision.title, robots: { index: false } };
     const url = `${siteUrl()}/reviews/${encodeURIComponent(slug)}`;
     return {
@@ -42,7 +60,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
   const { slug } = await params;
   const { revision: revParam } = await searchParams;
   const viewer = await getCurrentUser();
-  const page = orPageError(() => getReviewPage(getDb(), slug, viewer, revisionParam(revParam)));
+  const page = await loadPage(slug, viewer, revisionParam(revParam));
   const { revision: rev, review } = page;
   const isOld = page.latestPublicNumber !== null && rev.number !== page.latestPublicNumber && !page.isPreview;
   return (
@@ -57,6 +75,10 @@ export default async function ReviewPage({ params, searchParams }: Props) {
           You are reading revision {rev.number}, an earlier version.{' '}
           <Link href={`/reviews/${encodeURIComponent(review.slug)}`} className="text-lichen underline">
             Read the current revision
+          </Link>{' '}
+          or{' '}
+          <Link href={`/reviews/${encodeURIComponent(review.slug)}/changes?from=${rev.number}`} className="text-lichen underline">
+            see what changed since
           </Link>
           .
         </p>
@@ -125,6 +147,7 @@ export default async function ReviewPage({ params, searchParams }: Props) {
             </ul>
           </section>
         ) : null}
+        <BuyLinks links={page.buyLinks} />
         {page.history.length > 1 ? (
           <section className="mt-8 border-t border-rule pt-6 text-sm print:hidden" data-testid="revision-history">
             <h2 className="font-semibold">Revisions</h2>
@@ -141,6 +164,14 @@ export default async function ReviewPage({ params, searchParams }: Props) {
                   {h.publishedAt ? ` · ${formatDate(h.publishedAt)}` : ''}
                   {h.state === 'retracted' ? ' · retracted' : ''}
                   {h.correctionNote ? <span className="text-slate"> — {h.correctionNote}</span> : null}
+                  {page.latestPublicNumber !== null && h.number !== page.latestPublicNumber ? (
+                    <>
+                      {' · '}
+                      <Link href={`/reviews/${encodeURIComponent(review.slug)}/changes?from=${h.number}`} className="text-lichen underline underline-offset-2">
+                        what changed since
+                      </Link>
+                    </>
+                  ) : null}
                 </li>
               ))}
             </ol>
