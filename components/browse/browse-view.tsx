@@ -71,6 +71,8 @@ export function BrowseView({ initial }: Props) {
   };
 
   const [formKey, setFormKey] = useState(0);
+  const [filtersOpen, setFiltersOpen] = useState(false);
+  const activeFilters = Object.entries(values).filter(([k, v]) => v && k !== 'units' && k !== 'sort' && k !== 'order').length;
   const clearAll = () => {
     void setFixed(Object.fromEntries(BROWSE_FIXED_KEYS.map((k) => [k, null])));
     void setRanges(Object.fromEntries(Object.keys(rangeParsers).map((k) => [k, null])));
@@ -83,8 +85,23 @@ export function BrowseView({ initial }: Props) {
   const moneyInUse = sort?.money || Boolean(values['min.price'] || values['max.price']);
 
   return (
-    <div className="grid gap-8 lg:grid-cols-[17rem_1fr]">
-      <form key={formKey} role="search" aria-label="Filter gear" className="space-y-5 text-sm" onSubmit={(e) => e.preventDefault()}>
+    <div className="grid gap-4 lg:grid-cols-[17rem_1fr] lg:gap-8">
+      <button
+        type="button"
+        className="rounded-md border border-rule px-3 py-2 text-left text-sm font-semibold lg:hidden"
+        aria-expanded={filtersOpen}
+        aria-controls="browse-filters"
+        onClick={() => setFiltersOpen((o) => !o)}
+      >
+        {filtersOpen ? 'Hide filters' : 'Filters and sort'}
+        {activeFilters > 0 ? ` (${activeFilters} active)` : ''}
+      </button>
+      <form
+        key={formKey}
+        id="browse-filters"
+        role="search"
+        aria-label="Filter gear"
+        className={`space-y-5 text-sm lg:block ${filtersOpen ? '' : 'hidden'}`} onSubmit={(e) => e.preventDefault()}>
         <fieldset>
           <legend className="mb-2 font-semibold">Category</legend>
           <ul className="space-y-1" data-testid="category-facets">

@@ -35,8 +35,8 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
   const mass = item.specs.mass;
   const kind = isCategory(item.category) ? kindLabel(item.category, item.kind) : item.kind;
   return (
-    <li className="flex gap-4 rounded-lg border border-rule bg-paper p-3 sm:p-4" data-testid="gear-card" data-slug={item.slug}>
-      <div className="h-20 w-20 shrink-0 overflow-hidden rounded-md bg-card sm:h-24 sm:w-24">
+    <li className="flex flex-wrap gap-x-4 gap-y-2 rounded-lg border border-rule bg-paper p-3 sm:flex-nowrap" data-testid="gear-card" data-slug={item.slug}>
+      <div className="h-16 w-16 shrink-0 overflow-hidden rounded-md bg-card sm:h-20 sm:w-20">
         {item.photo ? (
           // eslint-disable-next-line @next/next/no-img-element -- served WebP variants from our own uploads route
           <img src={item.photo.src} alt={item.photo.alt} width={item.photo.width} height={item.photo.height} loading="lazy" className="h-full w-full object-cover" />
@@ -44,7 +44,7 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
           <span className="flex h-full w-full items-center justify-center text-center text-xs text-slate">No photo yet</span>
         )}
       </div>
-      <div className="min-w-0 flex-1 space-y-1">
+      <div className="min-w-0 flex-1 space-y-0.5">
         <p className="text-xs text-slate">
           {item.maker}
           {kind ? ` · ${kind}` : ''}
@@ -81,9 +81,9 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
           {item.price && sort?.key !== 'price' ? <span className="figure font-mono text-slate">{priceText(item.price)}</span> : null}
           {item.status ? <span className="rounded bg-amber-tint px-1.5 text-xs">Yours · {item.status}</span> : null}
         </p>
-        <div className="pt-1">
-          <AddToSideBySide slug={item.slug} name={item.name} compact />
-        </div>
+      </div>
+      <div className="shrink-0 self-start sm:self-center">
+        <AddToSideBySide slug={item.slug} name={item.name} compact />
       </div>
     </li>
   );
@@ -92,7 +92,7 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
 export function GearCardSkeleton() {
   return (
     <li className="flex animate-pulse gap-4 rounded-lg border border-rule p-4" aria-hidden="true">
-      <div className="h-20 w-20 rounded-md bg-card sm:h-24 sm:w-24" />
+      <div className="h-16 w-16 rounded-md bg-card sm:h-20 sm:w-20" />
       <div className="flex-1 space-y-2">
         <div className="h-3 w-24 rounded bg-card" />
         <div className="h-4 w-48 rounded bg-card" />

@@ -61,9 +61,11 @@ function displayUnit(row: CompareRow, units: UnitSystem): { unit: string; toDisp
   return { unit: row.unit, toDisplay: (v) => v };
 }
 
-function cellText(cell: CompareCell, toDisplay: (v: number) => number): string {
+function cellText(cell: CompareCell, rowUnit: string, toDisplay: (v: number) => number): string {
   if (cell.value === null) return '';
   if (typeof cell.value === 'string') return cell.value;
+  // A row without one unit (per-money ratios in several currencies) carries each cell's own unit.
+  if (rowUnit === '' && cell.unit !== '') return `${formatNumber(cell.value)} ${cell.unit}`;
   return formatNumber(toDisplay(cell.value));
 }
 
@@ -84,7 +86,7 @@ export function sideBySideView(response: CompareResponse, options: { units: Unit
         label: row.label,
         unit,
         direction: row.direction,
-        cells: row.cells.map((cell) => ({ text: cellText(cell, toDisplay), basis: cell.basis, provenance: cell.provenance, best: cell.best })),
+        cells: row.cells.map((cell) => ({ text: cellText(cell, row.unit, toDisplay), basis: cell.basis, provenance: cell.provenance, best: cell.best })),
       });
     }
     if (rows.length > 0) groups.push({ id: group.id, label: group.label, rows });

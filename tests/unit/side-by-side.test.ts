@@ -95,6 +95,29 @@ describe('side-by-side view and CSV', () => {
     expect(hidden.hiddenEqualRows).toBe(1);
   });
 
+  it('a row of per-money ratios in two currencies keeps each cell\'s unit (no shared unit to rank by)', () => {
+    const mixed: CompareResponse = {
+      items: compare.items,
+      groups: [
+        {
+          id: 'ratios',
+          label: 'Value ratios',
+          rows: [
+            {
+              key: 'lm-per-money', label: 'Light output per unit of money', unit: '', direction: null, allEqual: false,
+              cells: [
+                { value: 6.668, unit: 'lm/USD', basis: 'claimed', provenance: null, best: false },
+                { value: 12.2449, unit: 'lm/EUR', basis: 'claimed', provenance: null, best: false },
+              ],
+            },
+          ],
+        },
+      ],
+    };
+    const row = sideBySideView(mixed, { units: 'metric', hideEqual: false }).groups[0]!.rows[0]!;
+    expect(row.cells.map((c) => c.text)).toEqual(['6.67 lm/USD', '12.24 lm/EUR']);
+  });
+
   it('imperial: grams to ounces, °C to °F', () => {
     const view = sideBySideView(compare, { units: 'imperial', hideEqual: false });
     const mass = view.groups[0]!.rows[0]!;
