@@ -9,6 +9,7 @@ export function SiteFooter() {
         <Link href="/how-we-test" className="hover:text-ink hover:underline">How we test</Link>
         <Link href="/safety" className="hover:text-ink hover:underline">Safety cautions</Link>
         <Link href="/help" className="hover:text-ink hover:underline">Help</Link>
+        <Link href="/disclosure" className="hover:text-ink hover:underline">Disclosure</Link>
         <Link href="/api-guide" className="hover:text-ink hover:underline">API guide</Link>
       </div>
     </footer>

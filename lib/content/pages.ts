@@ -25,6 +25,10 @@ export const CONTENT_PAGES = {
     description:
       'Signing in, the logbook, the review desk, the workflow states, the units you can type and writing in Markdown.',
   },
+  disclosure: {
+    description:
+      'How testers get the gear they review, what the "Where to buy" and affiliate links are, and what money never changes.',
+  },
 } as const satisfies Record<string, { description: string }>;
 
 export type ContentSlug = keyof typeof CONTENT_PAGES;
