@@ -390,8 +390,10 @@ describe('GET /api/v1/gear/{slug}', () => {
     expect(own.res.headers.get('cache-control')).toBe('private, no-store');
   });
 
-  it('refuses unknown parameters and accepts units=imperial', async () => {
+  it('refuses unknown parameters and accepts units=imperial; 404 comes before 400, 401 before both', async () => {
     expect((await one(seed.slug.ember!, '?sort=mass')).status).toBe(400);
+    expect((await one('no-such-item', '?sort=mass')).status).toBe(404); // lib/http/errors.ts status table order
+    expect((await list('?limit=0', { authorization: 'Bearer not-a-token' })).status).toBe(401);
     const { body } = await one(seed.slug.ember!, '?units=imperial');
     expect(body.specs.mass.imperial.unit).toBe('oz');
   });
