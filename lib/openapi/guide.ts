@@ -197,6 +197,8 @@ export function schemaFields(input: Schema | undefined, components: Components, 
 function accessOf(security: Record<string, string[]>[] | undefined): GuideAccess {
   if (!security || security.length === 0) return 'anyone';
   const anonymous = security.some((req) => Object.keys(req).length === 0);
+  const named = security.some((req) => Object.keys(req).length > 0);
+  if (!named) return 'anyone';
   return anonymous ? 'anyone, more when signed in' : 'account';
 }
 
