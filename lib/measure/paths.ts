@@ -1,5 +1,14 @@
 import { assertRange, finiteResult, MeasureError } from './errors';
-import { PORT_KIND_LABELS, portFits, portKindLabel, validatePort, type Port, type PortKind } from './ports';
+import {
+  fitValidatedPorts,
+  PORT_KIND_LABELS,
+  portKindLabel,
+  SOLAR_LEAD_KINDS,
+  validatePort,
+  type Port,
+  type PortFit,
+  type PortKind,
+} from './ports';
 
 /**
  * Roles of kit items in charging paths: `source` (a panel), `storage` (a battery or bank),
@@ -83,12 +92,18 @@ export const PATH_SEARCH_LIMITS = {
   portsPerItem: 16,
   /** Cables and adapters in a row between two items. */
   linksInARow: 3,
+  /** Batteries and banks in one path (panel → battery → bank → device has two). */
+  storagesInAPath: 2,
   /** Paths kept per device. */
   pathsPerDevice: 50,
-  /** Search steps in total. */
-  searchSteps: 200_000,
+  /** Search steps in total, shared between the starting ports… */
+  searchSteps: 10_000,
+  /** …with at least this many for each. */
+  minStepsPerStart: 20,
 } as const;
 
+/** Paths collected per device before tails are removed and the list is cut to `pathsPerDevice`. */
+const COLLECT_PER_DEVICE = PATH_SEARCH_LIMITS.pathsPerDevice * 4;
 const MAX_ID = 100;
 const MAX_NAME = 200;
 
@@ -261,17 +276,12 @@ function joinOr(parts: string[]): string {
   return `${parts.slice(0, -1).join(', ')} or ${parts[parts.length - 1]}`;
 }
 
-interface Attempt {
-  joined: boolean;
-  reasons: string[];
-}
-
 /**
  * Every way the kit's panels and stored energy can reach each device: panel → storage →
  * port → cable/adapter → device (storage may feed storage), or storage → device, or panel →
  * device. A path never visits an item twice and uses a cable or adapter at most once; at most
- * three cables or adapters in a row. Paths that are the tail of a longer path from a panel are
- * not listed separately. When a device has no path, `reasons` says why in plain words.
+ * three cables or adapters in a row. A path from a storage that is the tail of a path from a
+ * panel is not listed separately. When a device has no path, `reasons` says why in plain words.
  *
  * Throws `MeasureError` for a malformed kit (see `KitPowerItem`).
  */
@@ -279,19 +289,57 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
   const items = validateKit(kit);
   const devices = items.filter((i) => i.role === 'device');
   const links = items.filter((i) => i.role === 'cable' || i.role === 'adapter');
-  const targets = items.filter((i) => i.role === 'device' || i.role === 'storage');
+  // Inputs of devices and storages by connector kind: an offer only meets inputs it could plug into.
+  interface Target {
+    item: Item;
+    port: Port;
+    index: number;
+  }
+  const inputsByKind = new Map<PortKind, Target[]>();
+  for (const item of items) {
+    if (item.role !== 'device' && item.role !== 'storage') continue;
+    item.ports.forEach((port, index) => {
+      if (!isInput(port)) return;
+      const list = inputsByKind.get(port.kind) ?? [];
+      list.push({ item, port, index });
+      inputsByKind.set(port.kind, list);
+    });
+  }
+  const candidates = (kind: PortKind): Target[] => {
+    const same = kind === 'solar-input' ? [] : (inputsByKind.get(kind) ?? []);
+    return SOLAR_LEAD_KINDS.includes(kind) ? [...same, ...(inputsByKind.get('solar-input') ?? [])] : same;
+  };
+  // Devices before storages, so the short paths are found before the search goes deeper.
+  for (const list of inputsByKind.values()) list.sort((a, b) => Number(a.item.role === 'storage') - Number(b.item.role === 'storage'));
   const found = new Map<string, ChargingPath[]>(devices.map((d) => [d.id, []]));
-  const attempts = new Map<string, Attempt[]>(devices.map((d) => [d.id, []]));
-  let budget: number = PATH_SEARCH_LIMITS.searchSteps;
+  /** Per device, why offers whose connector did join still did not fit. */
+  const electricalReasons = new Map<string, Set<string>>(devices.map((d) => [d.id, new Set()]));
+  let budget = 0;
   let truncated = false;
+  let devicesFull = 0;
+
+  // Offers are memoised per (upstream port, cable), so a port object stands for one chain and its
+  // fit with an input can be cached: the search then costs map look-ups, not re-checks.
+  const fitCache = new WeakMap<Port, WeakMap<Port, PortFit>>();
+  const fit = (offer: Offer, input: Port, inputName: string): PortFit => {
+    let row = fitCache.get(offer.port);
+    if (!row) fitCache.set(offer.port, (row = new WeakMap()));
+    let f = row.get(input);
+    if (!f) row.set(input, (f = fitValidatedPorts(offer.port, input, { output: offer.name, input: inputName })));
+    return f;
+  };
+  const cableCache = new WeakMap<Port, Map<string, Port>>();
+  const throughCableMemo = (up: Port, cable: Item): Port => {
+    let row = cableCache.get(up);
+    if (!row) cableCache.set(up, (row = new Map()));
+    let p = row.get(cable.id);
+    if (!p) row.set(cable.id, (p = throughCable(up, cable)));
+    return p;
+  };
 
   const emit = (deviceId: string, steps: PathStep[], cautions: string[]) => {
     const list = found.get(deviceId) as ChargingPath[];
-    // Collect generously; trimmed per device after tails are removed.
-    if (list.length >= PATH_SEARCH_LIMITS.pathsPerDevice * 4) {
-      truncated = true;
-      return;
-    }
+    if (list.length === COLLECT_PER_DEVICE - 1) devicesFull += 1;
     const efficiency = finiteResult(
       steps.reduce((acc, s) => acc * s.efficiency, 1),
       'Path efficiency',
@@ -317,56 +365,60 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
     usedLinks: Set<string>,
     linksInARow: number,
     cautions: string[],
+    storages: number,
   ) => {
-    if (--budget < 0) {
+    if (--budget < 0 || (devices.length > 0 && devicesFull === devices.length)) {
       truncated = true;
       return;
     }
-    for (const target of targets) {
+    for (const { item: target, port, index } of candidates(offer.port.kind)) {
       if (visited.has(target.id)) continue;
-      target.ports.forEach((port, index) => {
-        if (!isInput(port)) return;
-        const fit = portFits(offer.port, port, { output: offer.name, input: target.name });
-        const inputStep: PathStep = {
-          kind: 'input',
-          itemId: target.id,
-          itemName: target.name,
-          role: target.role,
-          portIndex: index,
-          description: portDescription(port, 'input'),
-          efficiency: port.efficiency ?? 1,
-        };
-        if (target.role === 'device') {
-          attempts.get(target.id)?.push({ joined: fit.problem !== 'connector', reasons: fit.reasons });
-          if (fit.fits) emit(target.id, [...steps, inputStep], [...cautions, ...fit.cautions]);
-          return;
+      const f = fit(offer, port, target.name);
+      const inputStep = (): PathStep => ({
+        kind: 'input',
+        itemId: target.id,
+        itemName: target.name,
+        role: target.role,
+        portIndex: index,
+        description: portDescription(port, 'input'),
+        efficiency: port.efficiency ?? 1,
+      });
+      if (target.role === 'device') {
+        if (!f.fits) {
+          if (f.problem !== 'connector') for (const r of f.reasons) electricalReasons.get(target.id)?.add(r);
+        } else if ((found.get(target.id) as ChargingPath[]).length < COLLECT_PER_DEVICE) {
+          emit(target.id, [...steps, inputStep()], [...cautions, ...f.cautions]);
+        } else {
+          truncated = true;
         }
-        if (!fit.fits) return;
-        const nextVisited = new Set(visited).add(target.id);
-        target.ports.forEach((outPort, outIndex) => {
-          // The same port may be used in and out: paths are routes for energy over time, not at one moment.
-          if (!isOutput(outPort)) return;
-          explore(
-            { port: outPort, name: target.name },
-            [
-              ...steps,
-              inputStep,
-              {
-                kind: 'output',
-                itemId: target.id,
-                itemName: target.name,
-                role: target.role,
-                portIndex: outIndex,
-                description: portDescription(outPort, 'output'),
-                efficiency: outPort.efficiency ?? 1,
-              },
-            ],
-            nextVisited,
-            usedLinks,
-            0,
-            [...cautions, ...fit.cautions],
-          );
-        });
+        continue;
+      }
+      if (!f.fits || storages >= PATH_SEARCH_LIMITS.storagesInAPath) continue;
+      const nextVisited = new Set(visited).add(target.id);
+      target.ports.forEach((outPort, outIndex) => {
+        // The same port may be used in and out: paths are routes for energy over time, not at one moment.
+        if (!isOutput(outPort)) return;
+        explore(
+          { port: outPort, name: target.name },
+          [
+            ...steps,
+            inputStep(),
+            {
+              kind: 'output',
+              itemId: target.id,
+              itemName: target.name,
+              role: target.role,
+              portIndex: outIndex,
+              description: portDescription(outPort, 'output'),
+              efficiency: outPort.efficiency ?? 1,
+            },
+          ],
+          nextVisited,
+          usedLinks,
+          0,
+          [...cautions, ...f.cautions],
+          storages + 1,
+        );
       });
     }
     if (linksInARow >= PATH_SEARCH_LIMITS.linksInARow) return;
@@ -376,11 +428,11 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       let linkCautions: string[] = [];
       if (link.role === 'cable') {
         if (!cableJoins(offer.port, link)) continue;
-        next = throughCable(offer.port, link);
+        next = throughCableMemo(offer.port, link);
       } else {
-        const fit = portFits(offer.port, link.from as Port, { output: offer.name, input: link.name });
-        if (!fit.fits) continue;
-        linkCautions = fit.cautions;
+        const f = fit(offer, link.from as Port, link.name);
+        if (!f.fits) continue;
+        linkCautions = f.cautions;
         next = link.to as Port;
       }
       explore(
@@ -400,14 +452,19 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         new Set(usedLinks).add(link.id),
         linksInARow + 1,
         [...cautions, ...linkCautions],
+        storages,
       );
     }
   };
 
   const starts = items.filter((i) => i.role === 'source' || i.role === 'storage');
+  // Each starting port gets its share of the search, so one long chain cannot starve the others.
+  const startPorts = starts.reduce((n, s) => n + s.ports.filter(isOutput).length, 0);
+  const share = Math.max(PATH_SEARCH_LIMITS.minStepsPerStart, Math.floor(PATH_SEARCH_LIMITS.searchSteps / Math.max(1, startPorts)));
   for (const start of starts) {
     start.ports.forEach((port, index) => {
       if (!isOutput(port)) return;
+      budget = share;
       explore(
         { port, name: start.name },
         [
@@ -425,6 +482,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         new Set(),
         0,
         [],
+        start.role === 'storage' ? 1 : 0,
       );
     });
   }
@@ -436,10 +494,12 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
 
   const result: DeviceChargingPaths[] = devices.map((device) => {
     const all = found.get(device.id) as ChargingPath[];
-    // A path that is the tail of another (storage → device inside panel → storage → device) is not listed.
+    // A storage-first path that is the tail of a panel-first one (storage → device inside
+    // panel → storage → device) is not listed: the panel-first path already shows it.
     const keys = all.map((p) => p.steps.map(stepKey).join('|'));
     const tails = new Set<string>();
     all.forEach((p, k) => {
+      if (p.startsAt !== 'source') return;
       p.steps.forEach((s, i) => {
         if (i > 0 && s.kind === 'output') tails.add((keys[k] as string).split('|').slice(i).join('|'));
       });
@@ -454,7 +514,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       itemName: device.name,
       quantity: device.quantity,
       paths: kept,
-      reasons: kept.length ? [] : reasonsForNoPath(device, starts, startKinds, attempts.get(device.id) ?? []),
+      reasons: kept.length ? [] : reasonsForNoPath(device, starts, startKinds, electricalReasons.get(device.id) ?? new Set()),
     };
   });
 
@@ -463,12 +523,12 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
 
 const MAX_REASONS = 6;
 
-function reasonsForNoPath(device: Item, starts: Item[], startKinds: Map<string, string>, attempts: Attempt[]): string[] {
+function reasonsForNoPath(device: Item, starts: Item[], startKinds: Map<string, string>, electricalReasons: Set<string>): string[] {
   const inputs = device.ports.filter(isInput);
   if (inputs.length === 0) return [`${device.name} lists no power input; add its charging or supply port`];
   if (starts.length === 0) return ['the kit has no battery, bank or panel to draw from'];
   if (startKinds.size === 0) return ['no battery, bank or panel in the kit lists an output port'];
-  const electrical = [...new Set(attempts.filter((a) => a.joined).flatMap((a) => a.reasons))];
+  const electrical = [...electricalReasons];
   if (electrical.length) return electrical.slice(0, MAX_REASONS);
   const theirs = joinOr([...new Set(inputs.map((p) => portKindLabel(p)))]);
   const ours = joinOr([...startKinds.values()]);

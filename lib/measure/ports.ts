@@ -96,7 +96,7 @@ const MAX_FIGURE = 1_000_000;
 const MAX_PD_PROFILES = 16;
 const MAX_LABEL = 100;
 /** Kinds a panel's lead may present to a solar input (the plug itself is the user's to check). */
-const SOLAR_LEAD_KINDS: readonly PortKind[] = ['dc-barrel', 'genderless-dc', 'binding-posts', 'other'];
+export const SOLAR_LEAD_KINDS: readonly PortKind[] = ['dc-barrel', 'genderless-dc', 'binding-posts', 'other'];
 
 function isObject(value: unknown): value is Record<string, unknown> {
   return value !== null && typeof value === 'object' && !Array.isArray(value);
@@ -280,8 +280,11 @@ export function connectorsJoin(output: Port, input: Port): boolean {
  * an unstated voltage is a failure (it cannot be checked).
  */
 export function portFits(output: Port, input: Port, names: { output?: string; input?: string } = {}): PortFit {
-  const out = validatePort(output, 'Output');
-  const inp = validatePort(input, 'Input');
+  return fitValidatedPorts(validatePort(output, 'Output'), validatePort(input, 'Input'), names);
+}
+
+/** `portFits` for ports that `validatePort` has already checked (the path search calls it many times). */
+export function fitValidatedPorts(out: Port, inp: Port, names: { output?: string; input?: string } = {}): PortFit {
   const outName = names.output ?? 'the output';
   const inName = names.input ?? 'the input';
   const reasons: string[] = [];
