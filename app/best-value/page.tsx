@@ -1,13 +1,15 @@
 import type { Metadata } from 'next';
 import { Suspense } from 'react';
 import { BestValue } from '@/components/best-value/best-value';
+import { getUnitSystem } from '@/lib/units/preference';
 
 export const metadata: Metadata = {
   title: 'Best-value line',
   description: 'Plot a category’s gear on two figures and see which items no other item beats on both.',
 };
 
-export default function BestValuePage() {
+export default async function BestValuePage() {
+  const units = await getUnitSystem();
   return (
     <main className="mx-auto max-w-6xl px-4 py-10 sm:px-6">
       <h1 className="text-3xl font-bold tracking-tight">Best-value line</h1>
@@ -17,7 +19,7 @@ export default function BestValuePage() {
       </p>
       <div className="mt-6">
         <Suspense fallback={<p className="text-sm text-slate">Loading the plot…</p>}>
-          <BestValue />
+          <BestValue units={units} />
         </Suspense>
       </div>
     </main>

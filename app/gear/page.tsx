@@ -8,6 +8,7 @@ import { getCurrentUser } from '@/lib/auth/guard';
 import type { GearListResponse } from '@/lib/browse/contract';
 import { parseGearListQuery } from '@/lib/browse/query';
 import { AppError } from '@/lib/http/errors';
+import { getUnitSystem } from '@/lib/units/preference';
 
 export const metadata: Metadata = {
   title: 'Browse gear',
@@ -20,7 +21,8 @@ type SearchParams = Promise<Record<string, string | string[] | undefined>>;
 export default async function GearPage({ searchParams }: { searchParams: SearchParams }) {
   // The first page is rendered here from the same query the client sends to /api/v1/gear, so the
   // client picks it up as its initial data and a shared link shows its list without a round trip.
-  const query = browseApiQuery(browseValuesFromSearchParams(await searchParams));
+  const units = await getUnitSystem();
+  const query = browseApiQuery(browseValuesFromSearchParams(await searchParams), units);
   let data: GearListResponse | null = null;
   let error: string | null = null;
   try {
@@ -39,7 +41,7 @@ export default async function GearPage({ searchParams }: { searchParams: SearchP
       </p>
       <div className="mt-8">
         <Suspense fallback={<p className="text-sm text-slate">Loading gear…</p>}>
-          <BrowseView initial={{ query, data, error }} />
+          <BrowseView initial={{ query, data, error }} units={units} />
         </Suspense>
       </div>
     </main>

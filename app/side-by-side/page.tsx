@@ -1,10 +1,12 @@
 import type { Metadata } from 'next';
 import { Suspense } from 'react';
 import { SideBySide } from '@/components/side-by-side/side-by-side';
+import { getUnitSystem } from '@/lib/units/preference';
 
 export const metadata: Metadata = { title: 'Side-by-side' };
 
-export default function SideBySidePage() {
+export default async function SideBySidePage() {
+  const units = await getUnitSystem();
   return (
     <main className="mx-auto max-w-6xl px-4 py-10 sm:px-6 print:max-w-none print:p-0">
       <h1 className="text-3xl font-bold tracking-tight">Side-by-side</h1>
@@ -14,7 +16,7 @@ export default function SideBySidePage() {
       </p>
       <div className="mt-6">
         <Suspense fallback={<p className="text-sm text-slate">Loading the side-by-side…</p>}>
-          <SideBySide />
+          <SideBySide units={units} />
         </Suspense>
       </div>
     </main>

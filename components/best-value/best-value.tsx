@@ -14,6 +14,7 @@ import { BROWSE_CURRENCIES } from '../browse/sort-options';
 import { useStoredSelection } from '../side-by-side/selection-store';
 import { BestValueChart } from './best-value-chart';
 import { fetchAllGear } from './fetch-all-gear';
+import type { UnitSystem } from '@/lib/units/display';
 
 const PLOTTED = CATEGORY_LIST.filter((def) => axisOptions(def.id).length >= 2);
 
@@ -24,15 +25,15 @@ const urlState = {
   currency: parseAsString,
   q: parseAsString,
   measured: parseAsStringLiteral(['only'] as const),
-  units: parseAsStringLiteral(['metric', 'imperial'] as const).withDefault('metric'),
 };
 
-function axisTitle(axis: AxisOption, currency: string | null, units: 'metric' | 'imperial'): string {
+function axisTitle(axis: AxisOption, currency: string | null, units: UnitSystem): string {
   const unit = axisUnit(axis, currency, units);
   return unit ? `${axis.label} (${unit})` : axis.label;
 }
 
-export function BestValue() {
+/** `units`: the reader's site-wide display units (header toggle). */
+export function BestValue({ units }: { units: UnitSystem }) {
   const [state, setState] = useQueryStates(urlState, { history: 'replace' });
   const category: Category = isCategory(state.category) ? state.category : 'light';
   const defaults = defaultAxes(category);
@@ -40,7 +41,6 @@ export function BestValue() {
   const yAxis = findAxis(category, state.y) ?? findAxis(category, defaults.y)!;
   const needsCurrency = xAxis.money || yAxis.money;
   const currency = needsCurrency ? (state.currency ?? 'USD') : null;
-  const units = state.units;
 
   const apiParams = useMemo(() => {
     const p = new URLSearchParams({ category });
@@ -52,9 +52,8 @@ export function BestValue() {
       p.set('sort', moneyAxis.key);
       p.set('currency', currency);
     }
-    if (units === 'imperial') p.set('units', 'imperial');
     return p;
-  }, [category, state.q, state.measured, xAxis, yAxis, currency, units]);
+  }, [category, state.q, state.measured, xAxis, yAxis, currency]);
 
   const query = useQuery({
     queryKey: ['best-value', apiParams.toString()],
@@ -160,10 +159,7 @@ export function BestValue() {
             <input type="checkbox" checked={state.measured === 'only'} onChange={(e) => void setState({ measured: e.target.checked ? 'only' : null })} />
             Measured only
           </label>
-          <label className="flex items-center gap-2">
-            <input type="checkbox" checked={units === 'imperial'} onChange={(e) => void setState({ units: e.target.checked ? 'imperial' : null })} />
-            Imperial units
-          </label>
+
         </fieldset>
       </form>
 

@@ -4,7 +4,7 @@
  * (first page) and in the client (TanStack Query key), so both agree on what the first page is.
  */
 
-export const BROWSE_FIXED_KEYS = ['category', 'kind', 'q', 'sort', 'order', 'measured', 'reviewed', 'currency', 'units', 'min.mass', 'max.mass'] as const;
+export const BROWSE_FIXED_KEYS = ['category', 'kind', 'q', 'sort', 'order', 'measured', 'reviewed', 'currency', 'min.mass', 'max.mass'] as const;
 
 /** Range parameters of the sorted figure (`min.lm-per-g`, `max.lm-per-g`), when it is not mass. */
 export function sortRangeKeys(sort: string | null | undefined): string[] {
@@ -18,13 +18,17 @@ export function browseKeys(sort: string | null | undefined): string[] {
 /** Items per browse page. */
 export const BROWSE_PAGE_SIZE = 24;
 
-/** `category=light&sort=lm-per-g&…&limit=24` from the browse values (blank and null values left out). */
-export function browseApiQuery(values: Readonly<Record<string, string | null | undefined>>): string {
+/**
+ * `category=light&sort=lm-per-g&…&limit=24` from the browse values (blank and null values left out).
+ * The units are the reader's site-wide choice, not part of a shared link.
+ */
+export function browseApiQuery(values: Readonly<Record<string, string | null | undefined>>, units: 'metric' | 'imperial' = 'metric'): string {
   const params = new URLSearchParams();
   for (const key of browseKeys(values.sort)) {
     const value = values[key];
     if (value !== null && value !== undefined && value.trim() !== '') params.set(key, value.trim());
   }
+  if (units === 'imperial') params.set('units', 'imperial');
   params.set('limit', String(BROWSE_PAGE_SIZE));
   return params.toString();
 }

@@ -9,17 +9,21 @@ import { isCategory } from '@/lib/measure';
 import { BROWSE_FIXED_KEYS, browseApiQuery } from './browse-params';
 import { fetchJson } from './fetch-json';
 import { GearCard, GearCardSkeleton } from './gear-card';
+import { UnitsToggle } from '../units-toggle';
+import type { UnitSystem } from '@/lib/units/display';
 import { BROWSE_CURRENCIES, sortOptions } from './sort-options';
 
 interface Props {
   /** The API query the server rendered, and its answer (or the API's message when the link is bad). */
   initial: { query: string; data: GearListResponse | null; error: string | null };
+  /** The reader's site-wide display units (header toggle). */
+  units: UnitSystem;
 }
 
 const fixedParsers = Object.fromEntries(BROWSE_FIXED_KEYS.map((k) => [k, parseAsString])) as Record<(typeof BROWSE_FIXED_KEYS)[number], typeof parseAsString>;
 const TYPED = new Set(['q', 'min.mass', 'max.mass']);
 
-export function BrowseView({ initial }: Props) {
+export function BrowseView({ initial, units }: Props) {
   const [fixed, setFixed] = useQueryStates(fixedParsers, { history: 'replace' });
   const sortKey = fixed.sort;
   const rangeParsers = useMemo(
@@ -28,8 +32,8 @@ export function BrowseView({ initial }: Props) {
   );
   const [ranges, setRanges] = useQueryStates(rangeParsers, { history: 'replace' });
   const values: Record<string, string | null> = { ...fixed, ...ranges };
-  const apiQuery = browseApiQuery(values);
-  const imperial = fixed.units === 'imperial';
+  const apiQuery = browseApiQuery(values, units);
+  const imperial = units === 'imperial';
   const category = fixed.category && isCategory(fixed.category) ? fixed.category : null;
   const options = sortOptions(category, fixed.currency);
   const sort = options.find((o) => o.key === sortKey) ?? null;
@@ -72,7 +76,7 @@ export function BrowseView({ initial }: Props) {
 
   const [formKey, setFormKey] = useState(0);
   const [filtersOpen, setFiltersOpen] = useState(false);
-  const activeFilters = Object.entries(values).filter(([k, v]) => v && k !== 'units' && k !== 'sort' && k !== 'order').length;
+  const activeFilters = Object.entries(values).filter(([k, v]) => v && k !== 'sort' && k !== 'order').length;
   const clearAll = () => {
     void setFixed(Object.fromEntries(BROWSE_FIXED_KEYS.map((k) => [k, null])));
     void setRanges(Object.fromEntries(Object.keys(rangeParsers).map((k) => [k, null])));
@@ -238,14 +242,7 @@ export function BrowseView({ initial }: Props) {
 
         <fieldset className="flex items-center gap-3">
           <legend className="mb-1 font-semibold">Units shown</legend>
-          <label className="flex items-center gap-1">
-            <input type="radio" name="units" checked={!imperial} onChange={() => set('units', null)} />
-            Metric
-          </label>
-          <label className="flex items-center gap-1">
-            <input type="radio" name="units" checked={imperial} onChange={() => set('units', 'imperial')} />
-            Imperial
-          </label>
+          <UnitsToggle current={units} />
         </fieldset>
 
         <button type="button" onClick={clearAll} className="text-lichen underline">

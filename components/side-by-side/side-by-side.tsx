@@ -10,14 +10,16 @@ import { sideBySideCsv, sideBySideView } from '@/lib/side-by-side/table-model';
 import { fetchJson } from '../browse/fetch-json';
 import { useStoredSelection, writeSelection } from './selection-store';
 import { SideBySideTable } from './side-by-side-table';
+import { UnitsToggle } from '../units-toggle';
+import type { UnitSystem } from '@/lib/units/display';
 
 const urlState = {
   items: parseAsString,
-  units: parseAsStringLiteral(['metric', 'imperial'] as const).withDefault('metric'),
   equal: parseAsStringLiteral(['show', 'hide'] as const).withDefault('show'),
 };
 
-export function SideBySide() {
+/** `units`: the reader's site-wide display units (header toggle, also offered here). */
+export function SideBySide({ units }: { units: UnitSystem }) {
   const [state, setState] = useQueryStates(urlState, { history: 'replace' });
   const stored = useStoredSelection();
   const fromUrl = useMemo(() => parseSelection(state.items), [state.items]);
@@ -50,8 +52,8 @@ export function SideBySide() {
   });
 
   const view = useMemo(
-    () => (query.data ? sideBySideView(query.data, { units: state.units, hideEqual: state.equal === 'hide' }) : null),
-    [query.data, state.units, state.equal],
+    () => (query.data ? sideBySideView(query.data, { units, hideEqual: state.equal === 'hide' }) : null),
+    [query.data, units, state.equal],
   );
   // While a new order is fetched, keep showing the table in the order asked for.
   const stale = query.data && serializeSelection(query.data.items.map((i) => i.slug)) !== serializeSelection(slugs);
@@ -84,15 +86,7 @@ export function SideBySide() {
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-x-6 gap-y-3 text-sm print:hidden">
-        <fieldset className="flex items-center gap-2">
-          <legend className="sr-only">Units</legend>
-          {(['metric', 'imperial'] as const).map((u) => (
-            <label key={u} className="flex items-center gap-1">
-              <input type="radio" name="units" value={u} checked={state.units === u} onChange={() => void setState({ units: u })} />
-              {u === 'metric' ? 'Metric' : 'Imperial'}
-            </label>
-          ))}
-        </fieldset>
+        <UnitsToggle current={units} size="large" />
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={state.equal === 'hide'} onChange={(e) => void setState({ equal: e.target.checked ? 'hide' : null })} />
           Hide rows where all items are equal
