@@ -32,6 +32,7 @@ import { encodeSeries } from '../../lib/readings/encoding';
 import type { Sample } from '../../lib/readings/types';
 import type { SeriesRow } from './series';
 import { DEMO_ACCOUNTS, DEMO_FIELD_TESTS, DEMO_GEAR, DEMO_KITS, DEMO_MEASURED_SPECS, DEMO_REVIEWS, type DemoUserKey } from './demo-data';
+import { seedDemoBuyLinks } from './buy-links';
 
 export { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, DEMO_PLACES, demoAccount, type DemoAccount } from './demo-data';
 
@@ -47,6 +48,7 @@ export interface SeedCounts {
   reviewItems: number;
   reviewRevisions: number;
   reviewStateEvents: number;
+  reviewBuyLinks: number;
   kits: number;
   kitEntries: number;
 }
@@ -124,6 +126,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
     reviewItems: 0,
     reviewRevisions: 0,
     reviewStateEvents: 0,
+    reviewBuyLinks: 0,
     kits: 0,
     kitEntries: 0,
   };
@@ -335,6 +338,8 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
         );
       }
     }
+
+    inserted.reviewBuyLinks += seedDemoBuyLinks(tx);
 
     // Kits.
     for (const kit of DEMO_KITS) {

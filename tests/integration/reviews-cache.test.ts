@@ -154,3 +154,21 @@ describe('where-to-buy links', () => {
     expect(buyLinkRel({ isAffiliate: true })).toBe('sponsored nofollow noopener');
   });
 });
+
+describe('demo where-to-buy links', () => {
+  it('are valid, on reserved example domains only (RFC 2606), shown on the demo review and seeded once', async () => {
+    const { DEMO_BUY_LINKS } = await import('@/db/seed/buy-links');
+    const { seedDemo } = await import('@/db/seed');
+    const { buyLinksSchema } = await import('@/lib/reviews/buy-links');
+    for (const links of Object.values(DEMO_BUY_LINKS)) {
+      expect(buyLinksSchema.safeParse({ links }).success).toBe(true);
+      for (const l of links) expect(new URL(l.url).hostname).toMatch(/(^|\.)example(\.com)?$/);
+    }
+    const fresh = createTestDb().db;
+    const first = await seedDemo(fresh);
+    expect(first.inserted.reviewBuyLinks).toBe(Object.values(DEMO_BUY_LINKS).reduce((n, l) => n + l.length, 0));
+    expect((await seedDemo(fresh)).inserted.reviewBuyLinks).toBe(0);
+    const page = getReviewPage(fresh, 'glowmere-hearthglow-400-lantern-review', null);
+    expect(page.buyLinks.map((l) => l.isAffiliate)).toEqual([false, true]);
+  });
+});
