@@ -581,6 +581,8 @@ export interface WritingData {
   actions: WorkflowAction[];
   isCorrection: boolean;
   latestPublicNumber: number | null;
+  /** Where-to-buy links of the working revision. */
+  buyLinks: BuyLink[];
 }
 
 /** The author's writing page: 404 when not visible, 403 for editors who are not the author. */
@@ -597,6 +599,7 @@ export function getReviewForWriting(db: Db, reviewId: string, actor: Actor): Wri
     actions: availableActions({ kind: 'review', state: revision.state, actor, authorId: review.authorId }),
     isCorrection: revision.number > 1,
     latestPublicNumber: latestPublic(revisions)?.number ?? null,
+    buyLinks: buyLinksOf(db, revision.id),
   };
 }
 
@@ -622,6 +625,7 @@ export function getReviewForDesk(db: Db, reviewId: string, actor: Actor): DeskRe
     actions: [...actions].filter((a) => a !== 'start-correction' && a !== 'submit' && a !== 'withdraw'),
     isCorrection: revision.number > 1,
     latestPublicNumber: pub?.number ?? null,
+    buyLinks: buyLinksOf(db, revision.id),
     authorName: authorName(db, review.authorId),
     publicRevision: pub,
   };

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { BuyLinksEditor } from '@/components/reviews/buy-links-editor';
 import { EventLog } from '@/components/reviews/event-log';
 import { ReviewEditor } from '@/components/reviews/review-editor';
 import { StateBadge } from '@/components/reviews/state-badge';
@@ -73,6 +74,9 @@ export default async function WriteReviewPage({ params }: { params: Promise<{ id
           isCorrection={data.isCorrection}
           items={items}
         />
+      </div>
+      <div className="mt-12 border-t border-rule pt-6">
+        <BuyLinksEditor key={`${rev.id}-${rev.state}`} reviewId={review.id} initial={data.buyLinks} editable={data.editable} />
       </div>
       <section className="mt-12 max-w-2xl border-t border-rule pt-6">
         <h2 className="text-lg font-semibold">History</h2>

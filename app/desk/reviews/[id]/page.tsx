@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { DeskActions } from '@/components/desk/desk-actions';
 import { DisclosureNotice } from '@/components/reviews/disclosure';
 import { EventLog } from '@/components/reviews/event-log';
+import { BuyLinks } from '@/components/reviews/buy-links';
 import { ReviewBody } from '@/components/reviews/review-body';
 import { StateBadge } from '@/components/reviews/state-badge';
 import { getDb } from '@/db';
@@ -56,6 +57,7 @@ export default async function DeskReviewPage({ params }: { params: Promise<{ id:
           <div className="mt-8">
             <ReviewBody source={rev.body} viewer={user} />
           </div>
+          <BuyLinks links={data.buyLinks} />
         </article>
         <aside className="space-y-8 lg:sticky lg:top-4 lg:self-start">
           <section aria-labelledby="act">
