@@ -259,8 +259,9 @@ function linkDescription(link: Item): string {
   return `${link.name} (${portKindLabel(link.from as Port)} → ${portKindLabel(link.to as Port)})`;
 }
 
-function stepKey(s: PathStep): string {
-  return `${s.kind}:${s.itemId}:${s.portIndex ?? ''}`;
+const KEY_SEPARATOR = '\u0001';
+function stepsKey(steps: readonly PathStep[]): string {
+  return steps.map((s) => `${s.kind}${KEY_SEPARATOR}${s.itemId}${KEY_SEPARATOR}${s.portIndex ?? ''}`).join(KEY_SEPARATOR.repeat(2));
 }
 
 /** "a 12 V socket", "USB-A" — for "no cable joins … to …" sentences. */
@@ -288,6 +289,7 @@ function joinOr(parts: string[]): string {
 export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
   const items = validateKit(kit);
   const devices = items.filter((i) => i.role === 'device');
+  if (devices.length === 0) return { devices: [], truncated: false };
   const links = items.filter((i) => i.role === 'cable' || i.role === 'adapter');
   // Inputs of devices and storages by connector kind: an offer only meets inputs it could plug into.
   interface Target {
@@ -435,8 +437,9 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         linkCautions = f.cautions;
         next = link.to as Port;
       }
+      // A cable's output is the upstream's power ("Bank through A-to-C cable"); an adapter's is its own.
       explore(
-        { port: next, name: `${offer.name} through ${link.name}` },
+        { port: next, name: link.role === 'cable' ? `${offer.name} through ${link.name}` : link.name },
         [
           ...steps,
           {
@@ -496,14 +499,14 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
     const all = found.get(device.id) as ChargingPath[];
     // A storage-first path that is the tail of a panel-first one (storage → device inside
     // panel → storage → device) is not listed: the panel-first path already shows it.
-    const keys = all.map((p) => p.steps.map(stepKey).join('|'));
+    const keys = all.map((p) => stepsKey(p.steps));
     const tails = new Set<string>();
-    all.forEach((p, k) => {
-      if (p.startsAt !== 'source') return;
+    for (const p of all) {
+      if (p.startsAt !== 'source') continue;
       p.steps.forEach((s, i) => {
-        if (i > 0 && s.kind === 'output') tails.add((keys[k] as string).split('|').slice(i).join('|'));
+        if (i > 0 && s.kind === 'output') tails.add(stepsKey(p.steps.slice(i)));
       });
-    });
+    }
     const paths = all
       .filter((_, k) => !tails.has(keys[k] as string))
       .sort((a, b) => b.efficiency - a.efficiency || a.steps.length - b.steps.length);

@@ -189,6 +189,13 @@ describe('findChargingPaths: hand-worked kits', () => {
     expect(d.reasons).toEqual(['Fan needs 12 V at its DC barrel; Bank through C-to-barrel cable gives 5 V']);
   });
 
+  it("an adapter's output is named after the adapter in reasons", () => {
+    const weakCharger: KitPowerItem = { ...carCharger, to: { kind: 'usb-c', pdProfiles: SPR_3A.slice(0, 3) } };
+    const battery12: KitPowerItem = { ...battery, ports: [battery.ports![1]!] };
+    const d = paths([battery12, weakCharger, laptop], 'laptop');
+    expect(d.reasons).toEqual(['Laptop needs 20 V at 2.25 A over USB-C; Car charger offers at most 15 V at 3 A']);
+  });
+
   it('plain reasons when there is nothing to draw from or nothing to plug in', () => {
     expect(paths([radio], 'radio').reasons).toEqual(['the kit has no battery, bank or panel to draw from']);
     expect(paths([battery, { id: 'x', name: 'Stove', role: 'device', ports: [] }], 'x').reasons).toEqual([
