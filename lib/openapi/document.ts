@@ -6,6 +6,7 @@
 import { OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { createRegistry, type OpenAPIRegistry } from './registry';
 import { registerApiDocument } from './paths/api-document';
+import { registerAuth } from './paths/auth';
 import { registerFieldTests } from './paths/field-tests';
 import { registerGearWrites } from './paths/gear';
 import { registerKits } from './paths/kits';
@@ -28,8 +29,7 @@ export const API_AREAS: ApiArea[] = [
   { tag: 'Field tests', description: 'Field-test records, their trials and readings, and the review workflow.', register: registerFieldTests },
   { tag: 'Kits', description: 'Kits and their power budget: your own kits, duplicates and share links.', register: registerKits },
   { tag: 'This document', description: 'The OpenAPI document itself, for code generators and API tools.', register: registerApiDocument },
-  // Helper B (personal tokens and the bearer security scheme) enables this line with lib/openapi/paths/auth.ts:
-  // { tag: 'Personal tokens', description: 'Personal API tokens for scripts.', register: registerAuth },
+  { tag: 'Personal tokens', description: 'Personal API tokens for scripts: created and revoked on your account page (/account), sent as `Authorization: Bearer <token>`.', register: registerAuth },
 ];
 
 const DESCRIPTION = [

@@ -42,6 +42,7 @@ const trials = await import('@/app/api/v1/field-tests/[id]/trials/route');
 const transitions = await import('@/app/api/v1/field-tests/[id]/transitions/route');
 const kits = await import('@/app/api/v1/kits/route');
 const kitOne = await import('@/app/api/v1/kits/[id]/route');
+const me = await import('@/app/api/v1/me/route');
 
 const ORIGIN = 'http://localhost:3000';
 type Users = Record<'author' | 'other' | 'editor' | 'reader' | 'admin', { id: string; email: string; name: string; role: Role }>;
@@ -259,6 +260,18 @@ describe('a token acts as its owner now', () => {
     expect(lastUsed()).toBe(t0);
     authenticateApiToken(state.db, token, t0 + LAST_USED_RESOLUTION_MS + 1);
     expect(lastUsed()).toBe(t0 + LAST_USED_RESOLUTION_MS + 1);
+  });
+});
+
+describe('GET /api/v1/me', () => {
+  it('names the caller with the role and scope in force now, and nothing more', async () => {
+    expect((await me.GET(req('GET', '/api/v1/me'))).status).toBe(401);
+    const res = await me.GET(req('GET', '/api/v1/me', { token: tokenFor('editor', 'read') }));
+    expect(res.status).toBe(200);
+    expect(res.headers.get('cache-control')).toBe('private, no-store');
+    expect(await body(res)).toEqual({ caller: { id: u.editor.id, name: 'editor', role: 'reviewer', via: 'token', scope: 'read' } });
+    state.session = u.author;
+    expect((await body(await me.GET(req('GET', '/api/v1/me')))).caller).toMatchObject({ role: 'reviewer', via: 'session', scope: 'write' });
   });
 });
 
