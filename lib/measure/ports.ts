@@ -317,10 +317,12 @@ export function fitValidatedPorts(out: Port, inp: Port, names: { output?: string
   const needText = window
     ? `${formatFigure(window.minVolts)}–${formatFigure(window.maxVolts)} V`
     : `${formatFigure(inVolts as number)} V`;
-  // A USB-C sink without PD profiles takes the plain 5 V a source always offers; PD sources list it.
-  const usable = offers.filter((o) => accepts(o.volts));
+  // A USB sink without PD profiles negotiates nothing: it gets the plain 5 V (PD sources list it).
+  const usbWithoutPd = inp.kind === 'usb-c' || inp.kind === 'usb-a';
+  const reachable = offers.filter((o) => !usbWithoutPd || !o.pd || sameVolts(o.volts, 5));
+  const usable = reachable.filter((o) => accepts(o.volts));
   if (usable.length === 0) {
-    const offered = offers.map((o) => `${formatFigure(o.volts)} V`).join(', ');
+    const offered = reachable.length ? reachable.map((o) => `${formatFigure(o.volts)} V`).join(', ') : 'no 5 V profile';
     return {
       fits: false,
       problem: 'voltage',
@@ -328,25 +330,32 @@ export function fitValidatedPorts(out: Port, inp: Port, names: { output?: string
       cautions,
     };
   }
-  const best = usable.reduce((a, b) => ((b.amps ?? -1) > (a.amps ?? -1) ? b : a));
-  const needAmps = inp.amps ?? (inp.watts !== undefined ? inp.watts / best.volts : undefined);
-  if (needAmps === undefined) {
+  const needAt = (o: Offer) => inp.amps ?? (inp.watts !== undefined ? inp.watts / o.volts : undefined);
+  if (needAt(usable[0] as Offer) === undefined) {
     cautions.push(`${inName} does not state the current or power it draws; check ${outName} can supply it`);
-  } else if (best.amps === undefined) {
-    cautions.push(
-      `${outName} does not state the current its ${portKindLabel(out)} delivers; check it gives at least ${formatFigure(needAmps)} A`,
-    );
-  } else if (best.amps < needAmps * (1 - 1e-9)) {
-    return {
-      fits: false,
-      problem: 'current',
-      reasons: [
-        `${inName} needs ${describeProfile({ volts: best.volts, amps: needAmps })}; ${outName} delivers at most ${formatFigure(best.amps)} A`,
-      ],
-      cautions,
-    };
+    return { fits: true, problem: null, reasons: [], cautions };
   }
-  return { fits: true, problem: null, reasons: [], cautions };
+  // Any accepted voltage that carries enough current will do; an offer with no stated current is a caution.
+  if (usable.some((o) => o.amps !== undefined && o.amps >= (needAt(o) as number) * (1 - 1e-9))) {
+    return { fits: true, problem: null, reasons: [], cautions };
+  }
+  const unstated = usable.find((o) => o.amps === undefined);
+  if (unstated) {
+    cautions.push(
+      `${outName} does not state the current its ${portKindLabel(out)} delivers; check it gives at least ${formatFigure(needAt(unstated) as number)} A`,
+    );
+    return { fits: true, problem: null, reasons: [], cautions };
+  }
+  // Report against the offer that comes closest (the most power).
+  const best = usable.reduce((a, b) => ((b.amps as number) * b.volts > (a.amps as number) * a.volts ? b : a));
+  return {
+    fits: false,
+    problem: 'current',
+    reasons: [
+      `${inName} needs ${describeProfile({ volts: best.volts, amps: needAt(best) as number })}; ${outName} delivers at most ${formatFigure(best.amps as number)} A`,
+    ],
+    cautions,
+  };
 }
 
 function fitPd(inp: Port, offers: Offer[], outName: string, inName: string, cautions: string[]): PortFit {

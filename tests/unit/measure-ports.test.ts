@@ -142,6 +142,15 @@ describe('portFits', () => {
     expect(portFits(bc12, { kind: 'usb-a', direction: 'input', watts: 7.6 }).fits).toBe(false);
   });
 
+  it('a USB-C sink without PD profiles gets only 5 V from a PD source, whatever window it states', () => {
+    // Nothing negotiates a higher voltage without PD. 10 W ÷ 5 V = 2 A ≤ 3 A fits; 20 W ÷ 5 V = 4 A > 3 A does not.
+    const sink = (watts: number): Port => ({ kind: 'usb-c', direction: 'input', voltageWindow: { minVolts: 5, maxVolts: 12 }, watts });
+    expect(portFits(usbC('output', SPR_3A), sink(10)).fits).toBe(true);
+    expect(portFits(usbC('output', SPR_3A), sink(20), { output: 'the bank', input: 'the fan' }).reasons).toEqual([
+      'the fan needs 5 V at 4 A; the bank delivers at most 3 A',
+    ]);
+  });
+
   it('a USB-C sink without PD profiles takes 5 V from a PD source', () => {
     const phone = usbC('input', undefined, { amps: 2 });
     expect(portFits(usbC('output', SPR_3A), phone).fits).toBe(true);
