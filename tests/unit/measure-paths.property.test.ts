@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { findChargingPaths, type ChargingPath, type KitPowerItem, type PdProfile } from '@/lib/measure';
+import { finiteOrMeasureError } from './measure/helpers';
 
 // Properties of the path search (identity arithmetic and graph facts, no outside source needed):
 // a path's efficiency is the product of its steps, so it is ≤ every step; no item is entered twice;
@@ -138,6 +139,34 @@ describe('findChargingPaths properties', () => {
       }),
       { numRuns: 200 },
     );
+  });
+
+  it('any JSON, or a valid kit with one field replaced by any JSON, gives a MeasureError or finite figures', () => {
+    fc.assert(fc.property(fc.jsonValue(), (v) => finiteOrMeasureError(() => findChargingPaths(v as never))), { numRuns: 200 });
+    fc.assert(
+      fc.property(fc.array(fc.jsonValue(), { maxLength: 4 }), (items) => finiteOrMeasureError(() => findChargingPaths({ items } as never))),
+      { numRuns: 200 },
+    );
+    const field = fc.constantFrom('id', 'name', 'role', 'quantity', 'ports', 'from', 'to', 'efficiency');
+    fc.assert(
+      fc.property(kitArb, fc.nat(), field, fc.jsonValue(), (spec, at, key, value) => {
+        const items = build(spec) as unknown as Record<string, unknown>[];
+        const target = items[at % items.length] as Record<string, unknown>;
+        target[key] = value;
+        finiteOrMeasureError(() => findChargingPaths({ items } as never));
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it('prototype-polluting keys in a kit are ignored', () => {
+    const kit = JSON.parse(
+      '{"items":[{"id":"b","name":"Bank","role":"storage","__proto__":{"polluted":1},"ports":[{"kind":"usb-a","direction":"output","constructor":{"prototype":{"polluted":1}}}]},' +
+        '{"id":"l","name":"Lantern","role":"device","ports":[{"kind":"usb-a","direction":"input","amps":1}]}]}',
+    );
+    const r = findChargingPaths(kit);
+    expect(r.devices[0]!.paths).toHaveLength(1);
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
   });
 
   it('a dense kit stays within the search bounds and says so', () => {
