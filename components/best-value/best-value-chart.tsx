@@ -1,5 +1,6 @@
 'use client';
 
+import { memo } from 'react';
 import { CartesianGrid, ResponsiveContainer, Scatter, ScatterChart, XAxis, YAxis } from 'recharts';
 import { formatNumber } from '@/lib/gear/format';
 import type { PlotPoint } from '@/lib/side-by-side/frontier';
@@ -11,7 +12,6 @@ interface Props {
   front: PlotPoint[];
   xLabel: string;
   yLabel: string;
-  activeSlug: string | null;
   onActivate: (slug: string | null) => void;
   onChoose: (point: PlotPoint) => void;
   describe: (point: PlotPoint) => string;
@@ -22,14 +22,15 @@ interface Props {
  * point is focusable: focus or hover shows it, Enter/Space or a click adds it to the side-by-side.
  * Front points are filled diamonds, the others hollow circles (shape, not colour alone).
  */
-export function BestValueChart({ points, front, xLabel, yLabel, activeSlug, onActivate, onChoose, describe }: Props) {
+export const BestValueChart = memo(function BestValueChart({ points, front, xLabel, yLabel, onActivate, onChoose, describe }: Props) {
+  // Memoised with stable props: focusing a point re-renders the page around it, never the points
+  // themselves (a re-render inside recharts would drop the keyboard focus).
   const others = points.filter((p) => !p.onFront);
   const shape = (onFrontLine: boolean) =>
     function PointShape(props: unknown) {
       const { cx, cy, payload } = props as { cx?: number; cy?: number; payload?: PlotPoint };
       if (cx === undefined || cy === undefined || !payload) return <g />;
-      const active = payload.slug === activeSlug;
-      const r = active ? 9 : 6;
+      const r = 6;
       return (
         <g
           tabIndex={0}
@@ -96,4 +97,4 @@ export function BestValueChart({ points, front, xLabel, yLabel, activeSlug, onAc
       </ResponsiveContainer>
     </div>
   );
-}
+});

@@ -3,7 +3,7 @@
 import { useQuery } from '@tanstack/react-query';
 import Link from 'next/link';
 import { debounce, parseAsString, parseAsStringLiteral, useQueryStates } from 'nuqs';
-import { useId, useMemo, useState } from 'react';
+import { useCallback, useId, useMemo, useState } from 'react';
 import { CATEGORY_LIST } from '@/lib/gear/categories';
 import { formatNumber } from '@/lib/gear/format';
 import { isCategory, type Category } from '@/lib/measure';
@@ -37,8 +37,11 @@ export function BestValue({ units }: { units: UnitSystem }) {
   const [state, setState] = useQueryStates(urlState, { history: 'replace' });
   const category: Category = isCategory(state.category) ? state.category : 'light';
   const defaults = defaultAxes(category);
-  const xAxis = findAxis(category, state.x) ?? findAxis(category, defaults.x)!;
-  const yAxis = findAxis(category, state.y) ?? findAxis(category, defaults.y)!;
+  const xKey = findAxis(category, state.x) ? state.x! : defaults.x;
+  const yKey = findAxis(category, state.y) ? state.y! : defaults.y;
+  // Stable per key: the chart is memoised on them (see BestValueChart).
+  const xAxis = useMemo(() => findAxis(category, xKey)!, [category, xKey]);
+  const yAxis = useMemo(() => findAxis(category, yKey)!, [category, yKey]);
   const needsCurrency = xAxis.money || yAxis.money;
   const currency = needsCurrency ? (state.currency ?? 'USD') : null;
 
@@ -71,12 +74,16 @@ export function BestValue({ units }: { units: UnitSystem }) {
   const selection = useStoredSelection();
   const xUnit = axisUnit(xAxis, currency, units);
   const yUnit = axisUnit(yAxis, currency, units);
-  const describe = (p: PlotPoint) =>
-    `${p.maker} ${p.name}: ${formatNumber(p.x)}${xUnit ? ` ${xUnit}` : ''} ${xAxis.label.toLowerCase()}, ${formatNumber(p.y)}${yUnit ? ` ${yUnit}` : ''} ${yAxis.label.toLowerCase()}${
-      p.onFront ? ', on the best-value line' : ''
-    }`;
-  const choose = (p: PlotPoint) => {
-    const result = selection.add(p.slug);
+  const describe = useCallback(
+    (p: PlotPoint) =>
+      `${p.maker} ${p.name}: ${formatNumber(p.x)}${xUnit ? ` ${xUnit}` : ''} ${xAxis.label.toLowerCase()}, ${formatNumber(p.y)}${yUnit ? ` ${yUnit}` : ''} ${yAxis.label.toLowerCase()}${
+        p.onFront ? ', on the best-value line' : ''
+      }`,
+    [xAxis, yAxis, xUnit, yUnit],
+  );
+  const { add } = selection;
+  const choose = useCallback((p: PlotPoint) => {
+    const result = add(p.slug);
     setActiveSlug(p.slug);
     setAnnouncement(
       result.ok
@@ -85,7 +92,7 @@ export function BestValue({ units }: { units: UnitSystem }) {
           ? `${p.name} is already in the side-by-side.`
           : `The side-by-side holds ${MAX_SIDE_BY_SIDE} items: remove one first.`,
     );
-  };
+  }, [add]);
   const active = plot?.points.find((p) => p.slug === activeSlug) ?? null;
 
   const ids = { category: useId(), x: useId(), y: useId(), currency: useId(), q: useId() };
@@ -194,7 +201,6 @@ export function BestValue({ units }: { units: UnitSystem }) {
                 front={plot.front}
                 xLabel={xTitle}
                 yLabel={yTitle}
-                activeSlug={activeSlug}
                 onActivate={setActiveSlug}
                 onChoose={choose}
                 describe={describe}

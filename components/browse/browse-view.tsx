@@ -163,7 +163,7 @@ export function BrowseView({ initial, units }: Props) {
           </div>
         </fieldset>
 
-        <div className="grid grid-cols-[1fr_auto] gap-2">
+        <div className="grid gap-3">
           <div>
             <label htmlFor={ids.sort} className="mb-1 block font-semibold">
               Sort by

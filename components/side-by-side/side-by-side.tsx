@@ -86,7 +86,9 @@ export function SideBySide({ units }: { units: UnitSystem }) {
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-center gap-x-6 gap-y-3 text-sm print:hidden">
-        <UnitsToggle current={units} size="large" />
+        <span className="flex items-center gap-2">
+          Units <UnitsToggle current={units} />
+        </span>
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={state.equal === 'hide'} onChange={(e) => void setState({ equal: e.target.checked ? 'hide' : null })} />
           Hide rows where all items are equal
