@@ -46,6 +46,8 @@ const DATE_KEYS = new Set(['createdAt', 'updatedAt', 'publishedAt', 'firstPublis
 /** Turns the ISO strings JSON made of Date fields back into Dates (only under known date keys). */
 export function reviveDates<T>(value: T): T {
   if (Array.isArray(value)) return value.map(reviveDates) as T;
+  // A cache miss hands back the function's own result, Dates and all.
+  if (value instanceof Date) return value;
   if (value && typeof value === 'object') {
     const out: Record<string, unknown> = {};
     for (const [k, v] of Object.entries(value)) out[k] = DATE_KEYS.has(k) && typeof v === 'string' ? new Date(v) : reviveDates(v);

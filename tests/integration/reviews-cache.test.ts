@@ -92,6 +92,8 @@ describe('cache support', () => {
     const revived = reviveDates(JSON.parse(JSON.stringify(page)) as typeof page);
     expect(revived).toEqual(page);
     expect(revived.revision.publishedAt).toBeInstanceOf(Date);
+    // A cache miss returns the function's own result: its Dates stay Dates.
+    expect(reviveDates(page)).toEqual(page);
     // Only date keys are revived: a title that looks like a date stays a string.
     expect(reviveDates({ title: '2026-10-02T08:41:00.000Z' })).toEqual({ title: '2026-10-02T08:41:00.000Z' });
   });
