@@ -88,7 +88,7 @@ export interface ChargingPathsResult {
 
 /** Bounds of the search (our own limits, to keep any kit's answer fast). */
 export const PATH_SEARCH_LIMITS = {
-  items: 200,
+  items: 100,
   portsPerItem: 16,
   /** Cables and adapters in a row between two items. */
   linksInARow: 3,
@@ -97,7 +97,7 @@ export const PATH_SEARCH_LIMITS = {
   /** Paths kept per device. */
   pathsPerDevice: 50,
   /** Search steps in total, shared between the starting ports… */
-  searchSteps: 10_000,
+  searchSteps: 5_000,
   /** …with at least this many for each. */
   minStepsPerStart: 20,
 } as const;
@@ -214,6 +214,18 @@ function portDescription(port: Port, side: 'input' | 'output'): string {
   return `${portKindLabel(port)} ${side}`;
 }
 
+function inputStep(target: Item, port: Port, index: number): PathStep {
+  return {
+    kind: 'input',
+    itemId: target.id,
+    itemName: target.name,
+    role: target.role,
+    portIndex: index,
+    description: portDescription(port, 'input'),
+    efficiency: port.efficiency ?? 1,
+  };
+}
+
 /** What is on offer at the end of a partial path: a port (possibly reshaped by cables) and its name for messages. */
 interface Offer {
   port: Port;
@@ -318,16 +330,22 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
   const electricalReasons = new Map<string, Set<string>>(devices.map((d) => [d.id, new Set()]));
   let budget = 0;
   let truncated = false;
-  let devicesFull = 0;
 
-  // Offers are memoised per (upstream port, cable), so a port object stands for one chain and its
-  // fit with an input can be cached: the search then costs map look-ups, not re-checks.
-  const fitCache = new WeakMap<Port, WeakMap<Port, PortFit>>();
-  const fit = (offer: Offer, input: Port, inputName: string): PortFit => {
-    let row = fitCache.get(offer.port);
-    if (!row) fitCache.set(offer.port, (row = new WeakMap()));
+  // Fits are cached by what an offer is (its figures), not by the route that produced it, with the
+  // names left as placeholders and filled in only where a sentence is used. Many routes give the
+  // same offer, so the search costs map look-ups rather than re-checks.
+  const OUT = '\u0002output\u0002';
+  const IN = '\u0002input\u0002';
+  const name = (sentence: string, outName: string, inName: string) => sentence.split(OUT).join(outName).split(IN).join(inName);
+  const signatures = new WeakMap<Port, string>();
+  const fitCache = new Map<string, WeakMap<Port, PortFit>>();
+  const fit = (offer: Offer, input: Port): PortFit => {
+    let sig = signatures.get(offer.port);
+    if (sig === undefined) signatures.set(offer.port, (sig = JSON.stringify(offer.port)));
+    let row = fitCache.get(sig);
+    if (!row) fitCache.set(sig, (row = new WeakMap()));
     let f = row.get(input);
-    if (!f) row.set(input, (f = fitValidatedPorts(offer.port, input, { output: offer.name, input: inputName })));
+    if (!f) row.set(input, (f = fitValidatedPorts(offer.port, input, { output: OUT, input: IN })));
     return f;
   };
   const cableCache = new WeakMap<Port, Map<string, Port>>();
@@ -339,25 +357,40 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
     return p;
   };
 
+  // Keeps at most COLLECT_PER_DEVICE paths per device; when full, a better path replaces the worst,
+  // so a search cut short still shows the most efficient routes it saw.
+  const worstIndex = new Map<string, number>();
+  const wanted = (deviceId: string, efficiency: number): boolean => {
+    const list = found.get(deviceId) as ChargingPath[];
+    if (list.length < COLLECT_PER_DEVICE) return true;
+    truncated = true;
+    return efficiency > (list[worstIndex.get(deviceId) as number] as ChargingPath).efficiency;
+  };
   const emit = (deviceId: string, steps: PathStep[], cautions: string[]) => {
     const list = found.get(deviceId) as ChargingPath[];
-    if (list.length === COLLECT_PER_DEVICE - 1) devicesFull += 1;
-    const efficiency = finiteResult(
-      steps.reduce((acc, s) => acc * s.efficiency, 1),
-      'Path efficiency',
-    );
     let lastStorageOut = -1;
     steps.forEach((s, i) => {
       if (s.kind === 'output' && s.role === 'storage') lastStorageOut = i;
     });
-    const fromStorageEfficiency = lastStorageOut < 0 ? null : steps.slice(lastStorageOut).reduce((acc, s) => acc * s.efficiency, 1);
-    list.push({
+    const path: ChargingPath = {
       steps,
-      efficiency,
-      fromStorageEfficiency,
+      efficiency: finiteResult(
+        steps.reduce((acc, s) => acc * s.efficiency, 1),
+        'Path efficiency',
+      ),
+      fromStorageEfficiency: lastStorageOut < 0 ? null : steps.slice(lastStorageOut).reduce((acc, s) => acc * s.efficiency, 1),
       startsAt: steps[0]?.role === 'source' ? 'source' : 'storage',
       cautions: [...new Set(cautions)],
-    });
+    };
+    if (list.length < COLLECT_PER_DEVICE) list.push(path);
+    else list[worstIndex.get(deviceId) as number] = path;
+    if (list.length === COLLECT_PER_DEVICE) {
+      let worst = 0;
+      list.forEach((p, i) => {
+        if (p.efficiency < (list[worst] as ChargingPath).efficiency) worst = i;
+      });
+      worstIndex.set(deviceId, worst);
+    }
   };
 
   const explore = (
@@ -368,30 +401,22 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
     linksInARow: number,
     cautions: string[],
     storages: number,
+    /** Product of the efficiencies of `steps`. */
+    efficiency: number,
   ) => {
-    if (--budget < 0 || (devices.length > 0 && devicesFull === devices.length)) {
+    if (--budget < 0) {
       truncated = true;
       return;
     }
     for (const { item: target, port, index } of candidates(offer.port.kind)) {
       if (visited.has(target.id)) continue;
-      const f = fit(offer, port, target.name);
-      const inputStep = (): PathStep => ({
-        kind: 'input',
-        itemId: target.id,
-        itemName: target.name,
-        role: target.role,
-        portIndex: index,
-        description: portDescription(port, 'input'),
-        efficiency: port.efficiency ?? 1,
-      });
+      const f = fit(offer, port);
       if (target.role === 'device') {
         if (!f.fits) {
-          if (f.problem !== 'connector') for (const r of f.reasons) electricalReasons.get(target.id)?.add(r);
-        } else if ((found.get(target.id) as ChargingPath[]).length < COLLECT_PER_DEVICE) {
-          emit(target.id, [...steps, inputStep()], [...cautions, ...f.cautions]);
-        } else {
-          truncated = true;
+          const reasons = electricalReasons.get(target.id) as Set<string>;
+          if (f.problem !== 'connector' && reasons.size < MAX_REASONS) for (const r of f.reasons) reasons.add(name(r, offer.name, target.name));
+        } else if (wanted(target.id, efficiency * (port.efficiency ?? 1))) {
+          emit(target.id, [...steps, inputStep(target, port, index)], [...cautions, ...f.cautions.map((c) => name(c, offer.name, target.name))]);
         }
         continue;
       }
@@ -404,7 +429,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
           { port: outPort, name: target.name },
           [
             ...steps,
-            inputStep(),
+            inputStep(target, port, index),
             {
               kind: 'output',
               itemId: target.id,
@@ -418,8 +443,9 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
           nextVisited,
           usedLinks,
           0,
-          [...cautions, ...f.cautions],
+          [...cautions, ...f.cautions.map((c) => name(c, offer.name, target.name))],
           storages + 1,
+          efficiency * (port.efficiency ?? 1) * (outPort.efficiency ?? 1),
         );
       });
     }
@@ -432,9 +458,9 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         if (!cableJoins(offer.port, link)) continue;
         next = throughCableMemo(offer.port, link);
       } else {
-        const f = fit(offer, link.from as Port, link.name);
+        const f = fit(offer, link.from as Port);
         if (!f.fits) continue;
-        linkCautions = f.cautions;
+        linkCautions = f.cautions.map((c) => name(c, offer.name, link.name));
         next = link.to as Port;
       }
       // A cable's output is the upstream's power ("Bank through A-to-C cable"); an adapter's is its own.
@@ -456,6 +482,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         linksInARow + 1,
         [...cautions, ...linkCautions],
         storages,
+        efficiency * link.efficiency,
       );
     }
   };
@@ -486,6 +513,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
         0,
         [],
         start.role === 'storage' ? 1 : 0,
+        port.efficiency ?? 1,
       );
     });
   }
