@@ -1,22 +1,11 @@
-import type { GuideField, GuideOperation } from '@/lib/openapi/guide';
-import { FieldTable } from './field-table';
+import type { GuideOperation } from '@/lib/openapi/guide';
+import { FieldList } from './field-list';
 
 const ACCESS_TEXT: Record<GuideOperation['access'], string> = {
   account: 'Needs an account: a personal token, or this site’s session.',
   anyone: 'Open to anyone.',
   'anyone, more when signed in': 'Open to anyone; signed in, you also see your own unpublished records.',
 };
-
-function fieldRows(fields: GuideField[]) {
-  return fields.map((f) => [
-    <code key="n" className="font-mono whitespace-nowrap">
-      {f.name}
-    </code>,
-    f.type,
-    f.required ? 'required' : 'optional',
-    f.notes,
-  ]);
-}
 
 function statusKind(status: string): string {
   if (status.startsWith('2')) return 'success';
@@ -29,7 +18,7 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
   const success = op.responses.filter((r) => r.status.startsWith('2'));
   const refusals = op.responses.filter((r) => !r.status.startsWith('2'));
   return (
-    <article id={op.id} aria-labelledby={`${op.id}-h`} className="scroll-mt-8 rounded-lg border border-rule p-4 sm:p-5">
+    <article id={op.id} aria-labelledby={`${op.id}-h`} className="scroll-mt-8 rounded-lg border border-rule p-3 sm:p-5">
       <h3 id={`${op.id}-h`} className="text-lg font-semibold">
         {op.summary}
       </h3>
@@ -43,20 +32,9 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
       {op.parameters.length ? (
         <>
           <h4 className="mt-4 text-sm font-semibold">Parameters</h4>
-          <FieldTable
-            caption={`Parameters of ${op.method} ${op.path}`}
-            className="mt-2"
-            head={['Name', 'In', 'Type', '', 'Notes']}
-            rows={op.parameters.map((p) => [
-              <code key="n" className="font-mono">
-                {p.name}
-              </code>,
-              p.in,
-              p.type,
-              p.required ? 'required' : 'optional',
-              p.notes,
-            ])}
-          />
+          <div className="mt-2 rounded-md border border-rule">
+            <FieldList label={`Parameters of ${op.method} ${op.path}`} fields={op.parameters} where />
+          </div>
         </>
       ) : null}
 
@@ -72,8 +50,8 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
                       <code className="font-mono font-semibold">{body.mediaType}</code>
                       <span className="text-slate"> — {body.fields.length} fields</span>
                     </summary>
-                    <div className="border-t border-rule p-2">
-                      <FieldTable caption={`${body.mediaType} body of ${op.method} ${op.path}`} head={['Field', 'Type', '', 'Notes']} rows={fieldRows(body.fields)} />
+                    <div className="border-t border-rule">
+                      <FieldList label={`${body.mediaType} body of ${op.method} ${op.path}`} fields={body.fields} />
                     </div>
                   </details>
                 ) : (
@@ -101,8 +79,8 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
                 <summary className="cursor-pointer px-3 py-2">
                   Fields of the answer<span className="text-slate"> — {r.fields.length}</span>
                 </summary>
-                <div className="border-t border-rule p-2">
-                  <FieldTable caption={`${r.status} answer of ${op.method} ${op.path}`} head={['Field', 'Type', '', 'Notes']} rows={fieldRows(r.fields)} />
+                <div className="border-t border-rule">
+                  <FieldList label={`${r.status} answer of ${op.method} ${op.path}`} fields={r.fields} />
                 </div>
               </details>
             ) : null}

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { openApiDocument } from '@/lib/openapi/document';
 import { apiGuide } from '@/lib/openapi/guide';
 import { ERROR_MEANING, type ErrorStatus } from '@/lib/openapi/registry';
@@ -76,8 +77,11 @@ export default function ApiGuidePage() {
               <div className="rounded-md border border-rule bg-card p-4">
                 <dt className="font-semibold">A personal API token (for scripts)</dt>
                 <dd className="mt-1 leading-relaxed">
-                  Send <code className="font-mono text-sm">Authorization: Bearer &lt;token&gt;</code>. Reviewers make tokens on their account page: each is
-                  named, shown once, and scoped <em>read</em> (public data plus your own drafts) or <em>write</em>. A token acts with its owner’s current
+                  Send <code className="font-mono text-sm">Authorization: Bearer &lt;token&gt;</code>. Reviewers (and editors and admins) make tokens on their{' '}
+                  <Link href="/account" className="font-semibold text-lichen underline underline-offset-2">
+                    account page
+                  </Link>
+                  : each is named, shown once, and scoped <em>read</em> (public data plus your own drafts) or <em>write</em>. A token acts with its owner’s current
                   role, checked on every request, and stops working the moment it is revoked or the account is disabled. Keep it out of shared
                   spreadsheets and code.
                 </dd>

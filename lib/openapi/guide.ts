@@ -81,6 +81,8 @@ const METHODS = ['get', 'post', 'put', 'patch', 'delete'] as const;
 /** Nested objects are listed down to this depth; deeper ones are summarised by their keys. */
 const MAX_DEPTH = 3;
 const MAX_ENUM_SHOWN = 8;
+/** Longer patterns help programs, not readers: the guide points to the document instead. */
+const MAX_PATTERN_SHOWN = 28;
 
 type Components = Record<string, Schema>;
 
@@ -138,8 +140,9 @@ export function constraintNotes(input: Schema | undefined, components: Component
   const low = schema.exclusiveMinimum !== undefined ? `> ${schema.exclusiveMinimum}` : schema.minimum !== undefined ? `≥ ${schema.minimum}` : null;
   const high = schema.exclusiveMaximum !== undefined ? `< ${schema.exclusiveMaximum}` : schema.maximum !== undefined ? `≤ ${schema.maximum}` : null;
   if (low || high) notes.push([low, high].filter(Boolean).join(', '));
-  if (schema.pattern) notes.push(`pattern ${schema.pattern}`);
-  if (schema.default !== undefined && !(typeof schema.default === 'object' && schema.default !== null)) notes.push(`default ${JSON.stringify(schema.default)}`);
+  if (schema.pattern) notes.push(schema.pattern.length <= MAX_PATTERN_SHOWN ? `pattern ${schema.pattern}` : 'a fixed format (its pattern is in openapi.json)');
+  if (schema.default === '') notes.push('default empty');
+  else if (schema.default !== undefined && !(typeof schema.default === 'object' && schema.default !== null)) notes.push(`default ${JSON.stringify(schema.default)}`);
   for (const v of schema.anyOf ?? schema.oneOf ?? []) if (!isNullOnly(v)) notes.push(...constraintNotes(v, components));
   return [...new Set(notes)];
 }
