@@ -179,5 +179,10 @@ describe('findChargingPaths properties', () => {
     expect(phone.paths.length).toBeGreaterThan(0);
     expect(phone.paths.length).toBeLessThanOrEqual(50);
     expect(result.truncated).toBe(true);
+    // Cut short, it still lists the best route first: a bank's USB-C port (0.9) straight to the phone
+    // (1) = 0.9, ahead of USB-A (0.9) × A-to-C cable (0.95) = 0.855.
+    expect(phone.paths[0]!.efficiency).toBeCloseTo(0.9, 12);
+    expect(phone.paths[0]!.steps).toHaveLength(2);
+    expect(phone.paths.filter((p) => p.steps.length === 2)).toHaveLength(12); // every bank directly
   });
 });
