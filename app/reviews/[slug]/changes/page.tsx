@@ -72,10 +72,22 @@ export default async function ReviewChangesPage({ params, searchParams }: Props)
         <div className="mt-6">
           <DiffLegend />
           <div className="mt-4">
-            {diffs.map((d) => (
-              <FieldDiffView key={d.field} diff={d} />
-            ))}
+            {diffs
+              .filter((d) => d.changed)
+              .map((d) => (
+                <FieldDiffView key={d.field} diff={d} />
+              ))}
           </div>
+          {diffs.some((d) => !d.changed) ? (
+            <p className="border-t border-rule pt-4 text-sm text-slate" data-testid="diff-unchanged">
+              Unchanged:{' '}
+              {diffs
+                .filter((d) => !d.changed)
+                .map((d) => d.label.toLowerCase())
+                .join(', ')}
+              .
+            </p>
+          ) : null}
         </div>
       )}
     </main>
