@@ -457,6 +457,22 @@ export interface GearPendingData {
   waterRating: string | null;
   changeNote: string;
   claims: { key: string; mode: string; value: number; source: string }[];
+  /** Claimed ports (lib/measure `Port` plus its claim source); absent in changes saved before ports existed. */
+  ports?: GearPortClaim[];
+}
+
+/** A claimed port as stored in a pending change and returned by the working copy. */
+export interface GearPortClaim {
+  kind: string;
+  direction: 'input' | 'output' | 'both';
+  volts?: number;
+  amps?: number;
+  watts?: number;
+  pdProfiles?: { volts: number; amps: number }[];
+  voltageWindow?: { minVolts: number; maxVolts: number };
+  label?: string;
+  efficiency?: number;
+  source: string;
 }
 
 /** Every change to a spec: who, when, old → new. `context`: a draft edit, an edit pending approval, or applied by approval. */
@@ -475,10 +491,55 @@ export const specChanges = sqliteTable(
     oldSource: text('old_source'),
     newSource: text('new_source'),
     context: text('context', { enum: ['edit', 'pending', 'approval'] }).notNull(),
+    /** Changes that are not one number (a port): the old and new state in words, e.g. "USB-C output, 5 V 3 A · 9 V 3 A". */
+    oldText: text('old_text'),
+    newText: text('new_text'),
     changedById: text('changed_by_id').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
   },
   (t) => [index('spec_changes_item').on(t.gearItemId, t.createdAt)],
+);
+
+/**
+ * Ports of a gear item (lib/measure `Port`, figures in V, A, W), in the order the author listed them.
+ * Claimed ports follow the item's workflow like claimed specs: once the item is approved these rows are
+ * the approved (public) ports and an edit waits in `gear_pending_changes.data.ports`. `basis` 'measured'
+ * (with its field test) is reserved for ports measured by a field test.
+ */
+export const gearPorts = sqliteTable(
+  'gear_ports',
+  {
+    id: text('id').primaryKey(),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    position: integer('position').notNull(),
+    basis: text('basis', { enum: ['claimed', 'measured'] }).notNull().default('claimed'),
+    /** lib/measure PORT_KINDS: usb-a, usb-c, socket-12v, dc-barrel, binding-posts, genderless-dc, mains-input, solar-input, other. */
+    kind: text('kind').notNull(),
+    direction: text('direction', { enum: ['input', 'output', 'both'] }).notNull(),
+    volts: real('volts'),
+    amps: real('amps'),
+    watts: real('watts'),
+    /** USB-C only: USB Power Delivery fixed profiles [{ volts, amps }]. */
+    pdProfiles: text('pd_profiles', { mode: 'json' }).$type<{ volts: number; amps: number }[]>(),
+    /** Inputs only: accepted voltage window, V. */
+    minVolts: real('min_volts'),
+    maxVolts: real('max_volts'),
+    label: text('label'),
+    /** Conversion efficiency inside the item at this port, (0, 1]. */
+    efficiency: real('efficiency'),
+    /** Where a claim came from: packaging, manual, makers-site. */
+    claimSource: text('claim_source'),
+    fieldTestId: text('field_test_id').references(() => fieldTests.id, { onDelete: 'set null' }),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [
+    uniqueIndex('gear_ports_item_basis_position').on(t.gearItemId, t.basis, t.position),
+    index('gear_ports_kind_direction').on(t.kind, t.direction),
+  ],
 );
 
 /** Value ratios of approved figures (lib/measure valueRatios), recomputed in the approval transaction; browse sorts on these. */
