@@ -83,7 +83,7 @@ export default async function ReviewChangesPage({ params, searchParams }: Props)
               Unchanged:{' '}
               {diffs
                 .filter((d) => !d.changed)
-                .map((d) => d.label.toLowerCase())
+                .map((d) => d.label.charAt(0).toLowerCase() + d.label.slice(1))
                 .join(', ')}
               .
             </p>
