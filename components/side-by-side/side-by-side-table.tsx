@@ -114,7 +114,7 @@ export function SideBySideTable({ view, onMove, onRemove }: Props) {
   const columnCount = view.columns.length + 1;
 
   return (
-    <div className="max-h-[75vh] overflow-auto rounded-lg border border-rule print:max-h-none print:overflow-visible print:border-0" tabIndex={0} role="region" aria-label="Side-by-side table (scrolls)">
+    <div className="relative max-h-[80vh] overflow-auto rounded-lg border border-rule print:max-h-none print:overflow-visible print:border-0" tabIndex={0} role="region" aria-label="Side-by-side table (scrolls)">
       <table className="w-full border-separate border-spacing-0 text-left text-sm" data-testid="side-by-side-table">
         <caption className="sr-only">
           Side-by-side of {view.columns.length} gear items. ★ marks the best value in a row; M measured, C claimed.

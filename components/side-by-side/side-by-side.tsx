@@ -118,7 +118,7 @@ export function SideBySide({ units }: { units: UnitSystem }) {
         <div aria-busy={stale || undefined} className={stale ? 'opacity-60' : undefined}>
           <SideBySideTable view={view} onMove={onMove} onRemove={onRemove} />
           <p className="mt-2 text-xs text-slate">
-            ★ best in its row (direction-aware) · M measured in a field test (links to it) · C the maker’s claim
+            ★ best in its row (direction-aware) · M measured in a field test (links to it) · C the maker’s claim · M+C a ratio of measured and claimed figures
             {view.hiddenEqualRows > 0 ? ` · ${view.hiddenEqualRows} rows with equal values hidden` : ''}
           </p>
         </div>
