@@ -11,7 +11,7 @@ import { useCaptureServer } from '@/lib/mail';
 // The actions read the shared connection and the session: point both at this test.
 const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
 vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('next/cache', () => ({ revalidatePath: () => undefined }));
+vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
 vi.mock('next/navigation', () => ({
   redirect: (to: string) => {
     throw Object.assign(new Error('redirect'), { redirectTo: to });
