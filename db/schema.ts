@@ -411,6 +411,12 @@ export const kitEntries = sqliteTable(
     chemistry: text('chemistry'),
     /** Storage: allowed depth of discharge, (0, 1]; null = the chemistry's default. */
     depthOfDischarge: real('depth_of_discharge'),
+    /** Free-form entries: role in charging paths (lib/kits FREE_ROLES: device, storage, source, cable, adapter). */
+    freeRole: text('free_role'),
+    /** Free-form entries: ports (lib/measure Port[]), checked by lib/kits portSchema on the way in and out. */
+    freePorts: text('free_ports', { mode: 'json' }).$type<unknown>(),
+    /** Free-form cable or adapter: conversion efficiency, (0, 1]. */
+    freeEfficiency: real('free_efficiency'),
     position: integer('position').notNull().default(0),
   },
   (t) => [index('kit_entries_kit').on(t.kitId)],
