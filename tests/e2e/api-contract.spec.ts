@@ -1,9 +1,14 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { execFile } from 'node:child_process';
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { promisify } from 'node:util';
 import { expect, test, type APIRequestContext, type APIResponse } from '@playwright/test';
 import sharp from 'sharp';
 import { baseURL } from '../../playwright.config';
 import { DEMO_FIELD_TESTS, DEMO_GEAR, DEMO_KITS, DEMO_REVIEWS } from '@/db/seed/demo-data';
+import { readingsExample } from '@/app/api-guide/example';
+import type { OpenApiDocument } from '@/lib/openapi/document';
 import { storageStateFor } from './support';
 
 /*
@@ -335,4 +340,40 @@ test.describe('as the demo reviewer (session, same origin)', () => {
     }
     await crossSite.dispose();
   });
+});
+
+test('the API guide’s curl example uploads a readings file with a personal token', async ({ browser, playwright }) => {
+  // The reviewer makes a write token on the account page, as the guide tells them to.
+  const context = await browser.newContext({ storageState: storageStateFor('reviewer') });
+  const page = await context.newPage();
+  await page.goto('/account');
+  await page.getByLabel('Name', { exact: true }).fill(`curl example ${Date.now().toString(36)}`);
+  await page.getByRole('radio', { name: /^Write/ }).check();
+  await page.getByRole('button', { name: 'Create token' }).click();
+  const token = await page.getByTestId('new-token-value').inputValue();
+  expect(token).toMatch(/^tb_/);
+
+  const example = readingsExample(contract.doc as unknown as OpenApiDocument);
+  const api = await playwright.request.newContext({ baseURL, storageState: { cookies: [], origins: [] }, extraHTTPHeaders: { Authorization: `Bearer ${token}` } });
+  const item = /item=([a-z0-9-]+)/.exec(example.command)![1]!;
+  const created = await api.post('/api/v1/field-tests', {
+    data: { kind: 'light-runtime', testedAt: '2026-09-20 19:00', placeLabel: 'Lakeshore test bench', sky: 'indoor', ambientC: 18, instruments: [{ name: 'Handheld lux meter' }], methodNotes: 'curl example', items: [item] },
+  });
+  expect(created.status()).toBe(201);
+  const { fieldTest } = (await created.json()) as { fieldTest: { id: string } };
+
+  // The command exactly as the guide shows it, pointed at this server.
+  const dir = mkdtempSync(path.join(tmpdir(), 'trailbench-curl-'));
+  writeFileSync(path.join(dir, 'log.csv'), `${example.csv}\n`);
+  const command = example.command.replace('http://localhost:3000', baseURL);
+  const { stdout } = await promisify(execFile)('sh', ['-c', command], { cwd: dir, env: { ...process.env, TRAILBENCH_TOKEN: token, FIELD_TEST_ID: fieldTest.id } });
+  const answer = JSON.parse(stdout) as { trial: { id: string; rows: number } };
+  expect(answer.trial.rows).toBe(example.csv.trim().split('\n').length - 1);
+
+  const view = (await (await api.get(`/api/v1/field-tests/${fieldTest.id}`)).json()) as { fieldTest: { trials: { id: string; rows: number }[] } };
+  expect(view.fieldTest.trials.map((t) => t.id)).toContain(answer.trial.id);
+
+  await page.goto('/api-guide');
+  await expect(page.getByLabel('Example upload command')).toContainText('--data-binary @log.csv');
+  await Promise.all([api.dispose(), context.close()]);
 });
