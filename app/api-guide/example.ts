@@ -23,9 +23,9 @@ export function readingsExample(doc: OpenApiDocument): { intro: string; csv: str
   const content = doc.paths?.['/api/v1/field-tests/{id}/readings']?.post?.requestBody;
   const types = content && 'content' in content ? Object.keys(content.content ?? {}) : [];
   const intro =
-    'A light-runtime test logged by a lux meter: time in seconds in the first column, the reading in the second. Make the field test first (POST /api/v1/field-tests, or the logbook), then send the file as one trial of one of its items:';
+    'A light-runtime test logged by a lux meter: time in seconds in the first column, the reading in the second. Make the field test first (`POST /api/v1/field-tests`, or the logbook), then send the file as one trial of one of its items:';
   const outro =
-    'The server parses the file again and answers 201 with the trial’s id and the number of readings stored, or 422 listing the rows it could not read (leave them out with dropRows). Replace localhost:3000 with the site’s address.';
+    'The server parses the file again and answers 201 with the trial’s id and the number of readings stored, or 422 listing the rows it could not read (leave them out with `dropRows`). Replace `localhost:3000` with the site’s address.';
   if (types.includes('text/csv')) {
     const command = [
       'curl --fail-with-body \\',
@@ -37,7 +37,7 @@ export function readingsExample(doc: OpenApiDocument): { intro: string; csv: str
       `  --url-query 'selection=${SELECTION}' \\`,
       `  "${URL}"`,
     ].join('\n');
-    return { intro, csv: EXAMPLE_CSV, command, outro: `${outro} --url-query needs curl 7.87 or later; it encodes each value for the address.` };
+    return { intro, csv: EXAMPLE_CSV, command, outro: `${outro} \`--url-query\` needs curl 7.87 or later; it encodes each value for the address.` };
   }
   const command = [
     'curl --fail-with-body \\',

@@ -1,4 +1,5 @@
 import type { GuideField } from '@/lib/openapi/guide';
+import { InlineText } from './rich-text';
 
 /** Fields (or parameters) as a list that reads the same on a phone as on a desk: name, then type and notes. */
 export function FieldList({ label, fields, where }: { label: string; fields: (GuideField & { in?: string })[]; where?: boolean }) {
@@ -12,7 +13,11 @@ export function FieldList({ label, fields, where }: { label: string; fields: (Gu
             <span className="text-slate"> · </span>
             {f.required ? <span className="font-semibold">required</span> : <span className="text-slate">optional</span>}
             {where && f.in ? <span className="text-slate"> · in {f.in}</span> : null}
-            {f.notes ? <p className="mt-0.5 break-words text-slate">{f.notes}</p> : null}
+            {f.notes ? (
+              <p className="mt-0.5 break-words text-slate">
+                <InlineText text={f.notes} />
+              </p>
+            ) : null}
           </dd>
         </div>
       ))}

@@ -1,5 +1,6 @@
 import type { GuideOperation } from '@/lib/openapi/guide';
 import { FieldList } from './field-list';
+import { DescriptionText, InlineText } from './rich-text';
 
 const ACCESS_TEXT: Record<GuideOperation['access'], string> = {
   account: 'Needs an account: a personal token, or this site’s session.',
@@ -27,7 +28,7 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
         {op.path}
       </p>
       <p className="mt-2 text-sm text-slate">{ACCESS_TEXT[op.access]}</p>
-      {op.description ? <p className="mt-3 max-w-[75ch] leading-relaxed">{op.description}</p> : null}
+      {op.description ? <DescriptionText text={op.description} className="mt-3 max-w-[75ch]" /> : null}
 
       {op.parameters.length ? (
         <>
@@ -73,7 +74,7 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
             <span className="figure mr-2 font-mono font-semibold" aria-label={`${r.status}, ${statusKind(r.status)}`}>
               {r.status}
             </span>
-            {r.description}
+            <InlineText text={r.description} />
             {r.fields.length ? (
               <details className="mt-2 rounded-md border border-rule">
                 <summary className="cursor-pointer px-3 py-2">

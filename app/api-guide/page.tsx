@@ -5,6 +5,7 @@ import { apiGuide } from '@/lib/openapi/guide';
 import { ERROR_MEANING, type ErrorStatus } from '@/lib/openapi/registry';
 import { OperationBlock } from './operation';
 import { FieldTable } from './field-table';
+import { InlineText } from './rich-text';
 import { areaId, readingsExample } from './example';
 
 export const metadata: Metadata = {
@@ -16,7 +17,9 @@ const ERROR_EXAMPLE = `{
   "error": {
     "code": "invalid",
     "message": "Some fields are not valid.",
-    "fields": { "specs.mass.value": ["Enter a value with its unit, e.g. \\"450 g\\"."] }
+    "fields": {
+      "name": ["Give the item’s name (at least 2 characters)."]
+    }
   }
 }`;
 
@@ -117,7 +120,12 @@ export default function ApiGuidePage() {
               caption="HTTP statuses of refusals"
               className="mt-4"
               head={['Status', 'Meaning']}
-              rows={(Object.keys(ERROR_MEANING) as unknown as ErrorStatus[]).map((status) => [<span key="s" className="figure font-mono">{status}</span>, ERROR_MEANING[status]])}
+              rows={(Object.keys(ERROR_MEANING) as unknown as ErrorStatus[]).map((status) => [
+                <span key="s" className="figure font-mono">
+                  {status}
+                </span>,
+                <InlineText key="m" text={ERROR_MEANING[status]} />,
+              ])}
             />
           </section>
 
@@ -125,14 +133,18 @@ export default function ApiGuidePage() {
             <h2 id="example-h" className="text-2xl font-bold">
               Example: upload a readings file
             </h2>
-            <p className="mt-3 leading-relaxed">{example.intro}</p>
+            <p className="mt-3 leading-relaxed">
+              <InlineText text={example.intro} />
+            </p>
             <pre className="mt-4 overflow-x-auto rounded-md border border-rule bg-card p-4 font-mono text-sm leading-relaxed" tabIndex={0} aria-label="Example log file, log.csv">
               <code>{example.csv}</code>
             </pre>
             <pre className="mt-3 overflow-x-auto rounded-md border border-rule bg-card p-4 font-mono text-sm leading-relaxed" tabIndex={0} aria-label="Example upload command">
               <code>{example.command}</code>
             </pre>
-            <p className="mt-3 leading-relaxed text-slate">{example.outro}</p>
+            <p className="mt-3 leading-relaxed text-slate">
+              <InlineText text={example.outro} />
+            </p>
           </section>
 
           {areas.map((area) => (
@@ -140,7 +152,11 @@ export default function ApiGuidePage() {
               <h2 id={`${areaId(area.tag)}-h`} className="border-b border-rule pb-2 text-2xl font-bold">
                 {area.tag}
               </h2>
-              {area.description ? <p className="mt-3 max-w-[70ch] leading-relaxed text-slate">{area.description}</p> : null}
+              {area.description ? (
+                <p className="mt-3 max-w-[70ch] leading-relaxed text-slate">
+                  <InlineText text={area.description} />
+                </p>
+              ) : null}
               <div className="mt-6 space-y-8">
                 {area.operations.map((op) => (
                   <OperationBlock key={op.id} operation={op} />
