@@ -15,6 +15,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { sql, type SQL } from 'drizzle-orm';
 import type { Db } from './connection';
+import { livePorts } from './gear-ports';
 import { gearItems, gearRatios, photos, specs, type GearItem, type Role } from './schema';
 import type { Figure, GearListResponse, GearSummary } from '@/lib/browse/contract';
 import { decodeGearCursor, encodeCursor } from '@/lib/browse/cursor';
@@ -248,7 +249,9 @@ export function findReadableGear(db: Db, slugs: readonly string[], caller: Calle
 /** `GET /api/v1/gear/{slug}`: the summary of one item (404 for an unknown or hidden slug). */
 export function getGearSummary(db: Db, slug: string, caller: Caller, options: { imperial?: boolean } = {}): GearSummary {
   const [item] = findReadableGear(db, [slug], caller);
-  return summaries(db, [item!], { caller, imperial: options.imperial ?? false })[0]!;
+  const summary = summaries(db, [item!], { caller, imperial: options.imperial ?? false })[0]!;
+  // The live port rows are the approved ones of a public item (an edit waits in its pending change).
+  return { ...summary, ports: livePorts(db, item!.id).map(({ source: _source, ...port }) => port) };
 }
 
 export { summaries as gearSummaries };

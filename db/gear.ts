@@ -1,6 +1,6 @@
 /**
  * Gear items: the only module that queries gear_items, specs (claimed), gear_pending_changes,
- * spec_changes, gear_ratios, gear_state_events and gear_figure_notes.
+ * spec_changes, gear_ratios, gear_state_events and gear_figure_notes (ports: db/gear-ports.ts).
  *
  * Model:
  * - `gear_items.status` is the state of the item's latest version (draft → in-review →
@@ -39,7 +39,10 @@ import { airlineBand, isSpecKey, SPECS, valueRatios, type AirlineBand, type Cate
 import { CATEGORY_DEFS, isLithium } from '@/lib/gear/categories';
 import { formatMoney, formatSpec } from '@/lib/gear/format';
 import { decide, type WorkflowAction } from '@/lib/workflow/transitions';
-import { claimRows, gearInputSchema, gearPatchSchema, type ClaimRow, type GearData } from '@/lib/gear/schemas';
+import { claimRows, gearInputSchema, gearPatchSchema, portClaims, type ClaimRow, type GearData, type PortClaim } from '@/lib/gear/schemas';
+import { CLAIM_SOURCE_LABELS } from '@/lib/gear/categories';
+import { describePort } from '@/lib/gear/ports';
+import { livePorts, writeLivePorts } from './gear-ports';
 
 export interface Actor {
   id: string;
@@ -96,9 +99,10 @@ export function findEditableGear(db: Q, slug: string, actor: Actor): GearItem {
 /* Working copy                                                                                     */
 /* ------------------------------------------------------------------------------------------------ */
 
-export interface WorkingCopy extends Omit<GearPendingData, 'claims'> {
+export interface WorkingCopy extends Omit<GearPendingData, 'claims' | 'ports'> {
   category: Category;
   claims: ClaimRow[];
+  ports: PortClaim[];
 }
 
 function typedClaims(claims: GearPendingData['claims']): ClaimRow[] {
@@ -140,6 +144,7 @@ function liveCopy(db: Q, item: GearItem): WorkingCopy {
     ...editableColumns(item),
     changeNote: '',
     claims: liveClaims(db, item.id),
+    ports: livePorts(db, item.id),
   };
 }
 
@@ -150,7 +155,10 @@ function pendingOf(db: Q, itemId: string): GearPendingData | null {
 /** The latest version: the pending change when there is one, else the item's own columns and specs. */
 export function workingCopy(db: Q, item: GearItem): WorkingCopy {
   const pending = pendingOf(db, item.id);
-  return pending ? { ...pending, claims: typedClaims(pending.claims), category: item.category as Category } : liveCopy(db, item);
+  if (!pending) return liveCopy(db, item);
+  // A change saved before ports existed leaves the ports as they are.
+  const ports = pending.ports ? (pending.ports as PortClaim[]) : livePorts(db, item.id);
+  return { ...pending, claims: typedClaims(pending.claims), ports, category: item.category as Category };
 }
 
 function dataToPending(data: GearData): Omit<WorkingCopy, 'category'> {
@@ -167,6 +175,7 @@ function dataToPending(data: GearData): Omit<WorkingCopy, 'category'> {
     waterRating: data.waterRating,
     changeNote: data.changeNote,
     claims: claimRows(data),
+    ports: portClaims(data),
   };
 }
 
@@ -198,6 +207,7 @@ export function workingCopyAsInput(copy: WorkingCopy): Record<string, unknown> {
     claimSource: mostCommonSource(copy.claims),
     specs: specsIn,
     modes: [...modes.values()],
+    ports: copy.ports.map((p) => ({ ...p })),
     changeNote: '',
   };
 }
@@ -251,6 +261,34 @@ function logSpecChanges(tx: Tx, itemId: string, actorId: string, context: 'edit'
   if (diffs.length === 0) return;
   tx.insert(specChanges)
     .values(diffs.map((d) => ({ gearItemId: itemId, basis: 'claimed' as const, context, changedById: actorId, createdAt: at, ...d })))
+    .run();
+}
+
+interface PortDiff {
+  key: string;
+  oldText: string | null;
+  newText: string | null;
+}
+
+function portText(p: PortClaim): string {
+  return `${describePort(p)} (${CLAIM_SOURCE_LABELS[p.source] ?? p.source})`;
+}
+
+/** Port changes by position, in words ("Port 2": old → new; added or removed ports have none on one side). */
+function diffPorts(before: readonly PortClaim[], after: readonly PortClaim[]): PortDiff[] {
+  const out: PortDiff[] = [];
+  for (let i = 0; i < Math.max(before.length, after.length); i += 1) {
+    const o = before[i] ? portText(before[i]!) : null;
+    const n = after[i] ? portText(after[i]!) : null;
+    if (o !== n) out.push({ key: `Port ${i + 1}`, oldText: o, newText: n });
+  }
+  return out;
+}
+
+function logPortChanges(tx: Tx, itemId: string, actorId: string, context: 'edit' | 'pending' | 'approval', diffs: PortDiff[], at: Date) {
+  if (diffs.length === 0) return;
+  tx.insert(specChanges)
+    .values(diffs.map((d) => ({ gearItemId: itemId, basis: 'claimed' as const, context, changedById: actorId, createdAt: at, mode: '', ...d })))
     .run();
 }
 
@@ -386,6 +424,9 @@ export function createGear(db: Db, actor: Actor, raw: unknown, now = new Date())
       const claims = claimRows(data);
       writeLiveClaims(tx, id, claims, now);
       logSpecChanges(tx, id, actor.id, 'edit', diffClaims([], claims), now);
+      const ports = portClaims(data);
+      writeLivePorts(tx, id, ports, now);
+      logPortChanges(tx, id, actor.id, 'edit', diffPorts([], ports), now);
       event(tx, id, null, 'draft', actor.id, now);
       return { id, slug };
     },
@@ -422,6 +463,8 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
           .run();
         writeLiveClaims(tx, item.id, next.claims, now);
         logSpecChanges(tx, item.id, actor.id, 'edit', diffClaims(before.claims, next.claims), now);
+        writeLivePorts(tx, item.id, next.ports, now);
+        logPortChanges(tx, item.id, actor.id, 'edit', diffPorts(before.ports, next.ports), now);
         return { slug: item.slug, pending: false };
       }
 
@@ -430,6 +473,7 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
         .onConflictDoUpdate({ target: gearPendingChanges.gearItemId, set: { data: next, authorId: actor.id, updatedAt: now } })
         .run();
       logSpecChanges(tx, item.id, actor.id, 'pending', diffClaims(before.claims, next.claims), now);
+      logPortChanges(tx, item.id, actor.id, 'pending', diffPorts(before.ports, next.ports), now);
       if (item.status === 'approved') {
         tx.update(gearItems).set({ status: 'draft', updatedAt: now }).where(eq(gearItems.id, item.id)).run();
         event(tx, item.id, 'approved', 'draft', actor.id, now, 'Edited after approval; the approved figures stay public until this change is approved.');
@@ -536,7 +580,10 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
           .run();
         writeLiveClaims(tx, item.id, typedClaims(pending.claims), at);
         logSpecChanges(tx, item.id, actor.id, 'approval', diffs, at);
-        const summary = figureSummary(diffs, priceOf(before), priceOf(pending));
+        const portDiffs = pending.ports ? diffPorts(before.ports, pending.ports as PortClaim[]) : [];
+        if (pending.ports) writeLivePorts(tx, item.id, pending.ports as PortClaim[], at);
+        logPortChanges(tx, item.id, actor.id, 'approval', portDiffs, at);
+        const summary = figureSummary(diffs, priceOf(before), priceOf(pending), portDiffs);
         if (summary) tx.insert(gearFigureNotes).values({ gearItemId: item.id, note: pending.changeNote, summary, approvedById: actor.id, createdAt: at }).run();
         tx.delete(gearPendingChanges).where(eq(gearPendingChanges.gearItemId, item.id)).run();
         current = tx.select().from(gearItems).where(eq(gearItems.id, item.id)).get()!;
@@ -549,7 +596,7 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
   );
 }
 
-function figureSummary(diffs: SpecDiff[], oldPrice: Money | null, newPrice: Money | null): string {
+function figureSummary(diffs: SpecDiff[], oldPrice: Money | null, newPrice: Money | null, portDiffs: PortDiff[] = []): string {
   const parts = diffs
     .filter((d) => isSpecKey(d.key))
     .map((d) => {
@@ -561,6 +608,7 @@ function figureSummary(diffs: SpecDiff[], oldPrice: Money | null, newPrice: Mone
     });
   const priceText = (p: Money | null) => (p ? formatMoney(p) : 'none');
   if (priceText(oldPrice) !== priceText(newPrice)) parts.push(`Price paid: ${priceText(oldPrice)} → ${priceText(newPrice)}`);
+  for (const d of portDiffs) parts.push(`${d.key}: ${d.oldText ?? 'none'} → ${d.newText ?? 'removed'}`);
   return parts.join('; ');
 }
 
@@ -754,7 +802,17 @@ export function specHistory(db: Db, slug: string, viewer: Actor) {
   const item = findVisibleGear(db, slug, viewer);
   if (!canSeeWorkingCopy(viewer, item)) throw new AppError('forbidden', 'Only the author and editors see the change history.');
   return db
-    .select({ key: specChanges.key, mode: specChanges.mode, oldValue: specChanges.oldValue, newValue: specChanges.newValue, context: specChanges.context, who: users.name, createdAt: specChanges.createdAt })
+    .select({
+      key: specChanges.key,
+      mode: specChanges.mode,
+      oldValue: specChanges.oldValue,
+      newValue: specChanges.newValue,
+      oldText: specChanges.oldText,
+      newText: specChanges.newText,
+      context: specChanges.context,
+      who: users.name,
+      createdAt: specChanges.createdAt,
+    })
     .from(specChanges)
     .leftJoin(users, eq(users.id, specChanges.changedById))
     .where(eq(specChanges.gearItemId, item.id))

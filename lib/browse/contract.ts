@@ -5,6 +5,8 @@
  * OpenAPI document.
  */
 
+import type { Port } from '@/lib/measure';
+
 export type FigureBasis = 'claimed' | 'measured' | 'mixed';
 
 /** One figure of an item: a spec (claimed or measured) or a value ratio, in canonical units. */
@@ -38,6 +40,8 @@ export interface GearSummary {
   reviewed: boolean;
   /** `draft`, `in-review` … only in authenticated responses that include the caller's own unpublished items. */
   status?: string;
+  /** Claimed ports (lib/measure `Port`, V/A/W), approved ones for a public item; only in `GET /api/v1/gear/{slug}`. */
+  ports?: Port[];
 }
 
 export interface GearListResponse {

@@ -7,9 +7,28 @@
  * role, status, id …) are refused with a field error, never silently stored.
  */
 import { z } from 'zod';
-import { CATEGORIES, CHEMISTRIES, isCurrencyCode, minorUnitDigits, moneyFromMajor, SPECS, type Category, type Money, type SpecKey } from '@/lib/measure';
+import {
+  CATEGORIES,
+  CHEMISTRIES,
+  isCurrencyCode,
+  MeasureError,
+  minorUnitDigits,
+  moneyFromMajor,
+  PD_MAX_AMPS,
+  PD_MAX_VOLTS,
+  PORT_DIRECTIONS,
+  PORT_KIND_LABELS,
+  PORT_KINDS,
+  SPECS,
+  validatePort,
+  type Category,
+  type Money,
+  type Port,
+  type SpecKey,
+} from '@/lib/measure';
 import { CATEGORY_DEFS, CLAIM_SOURCES, claimableSpecs, MODE_SPEC_KEYS, type ClaimSource } from './categories';
 import { MAX_CANONICAL, parseQuantity, QuantityParseError, type TypedQuantity } from './parse-quantity';
+import { MAX_PORTS, parsePdProfiles, PdProfileTextError } from './ports';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 
@@ -99,6 +118,145 @@ const priceField = z
     return moneyFromMajor(amount, currency);
   });
 
+/* ---------------------------------------------------------------------------------------------- */
+/* Ports (lib/measure `Port`, figures in V, A, W)                                                  */
+/* ---------------------------------------------------------------------------------------------- */
+
+const MAX_PORT_FIGURE = 1_000_000;
+
+/** A port figure: a number, or text such as "12", "12 V", "2.4 A" (the unit, if typed, must be `unit`). '' or null: not given. */
+function portFigure(unit: 'V' | 'A' | 'W', max = MAX_PORT_FIGURE, what = 'value') {
+  return z
+    .union([z.number(), z.string().max(30, 'Use at most 30 characters.')], { error: `Enter the ${what} as a number of ${unit}.` })
+    .nullable()
+    .optional()
+    .transform((v, ctx): number | undefined => {
+      if (v === null || v === undefined || (typeof v === 'string' && v.trim() === '')) return undefined;
+      let n: number;
+      if (typeof v === 'number') n = v;
+      else {
+        const m = new RegExp(`^(-?\\d+(?:\\.\\d+)?)\\s*(?:${unit})?$`, 'i').exec(v.trim());
+        if (!m) {
+          ctx.addIssue({ code: 'custom', message: `Enter the ${what} as a number of ${unit}, e.g. "${unit === 'V' ? '12' : unit === 'A' ? '2.4' : '18'}".` });
+          return z.NEVER;
+        }
+        n = Number(m[1]);
+      }
+      if (!Number.isFinite(n)) ctx.addIssue({ code: 'custom', message: `The ${what} must be a finite number.` });
+      else if (n <= 0) ctx.addIssue({ code: 'custom', message: `The ${what} must be greater than 0 ${unit}.` });
+      else if (n > max) ctx.addIssue({ code: 'custom', message: `The ${what} must be at most ${max} ${unit}.` });
+      else return n;
+      return z.NEVER;
+    });
+}
+
+const pdProfileField = z.strictObject({
+  // USB PD fixed profiles reach 48 V (EPR, USB PD Rev 3.1) and 5 A (check-values §7).
+  volts: z.number({ error: 'Enter the profile’s volts as a number.' }).positive('The profile’s volts must be greater than 0.').max(PD_MAX_VOLTS, `USB Power Delivery profiles go up to ${PD_MAX_VOLTS} V.`),
+  amps: z.number({ error: 'Enter the profile’s amps as a number.' }).positive('The profile’s amps must be greater than 0.').max(PD_MAX_AMPS, `USB Power Delivery profiles carry at most ${PD_MAX_AMPS} A.`),
+});
+
+/** PD profiles as a list of { volts, amps }, or typed text "5 V 3 A · 9 V 3 A" (parsed by `parsePdProfiles`). */
+const pdProfilesField = z
+  .union([z.array(z.unknown()).max(16, 'List at most 16 Power Delivery profiles.'), z.string()], {
+    error: 'Give the Power Delivery profiles as a list of { volts, amps } or as text such as "9 V 3 A · 15 V 3 A".',
+  })
+  .nullable()
+  .optional()
+  .transform((v, ctx): unknown[] | undefined => {
+    if (v === null || v === undefined) return undefined;
+    if (typeof v !== 'string') return v.length ? v : undefined;
+    try {
+      const list = parsePdProfiles(v);
+      return list.length ? list : undefined;
+    } catch (error) {
+      ctx.addIssue({ code: 'custom', message: error instanceof PdProfileTextError ? error.message : 'The profiles could not be read.' });
+      return z.NEVER;
+    }
+  })
+  .pipe(z.array(pdProfileField).max(16, 'List at most 16 Power Delivery profiles.').optional());
+
+const voltageWindowField = z
+  .strictObject({
+    minVolts: portFigure('V', MAX_PORT_FIGURE, 'lowest accepted voltage'),
+    maxVolts: portFigure('V', MAX_PORT_FIGURE, 'highest accepted voltage'),
+  })
+  .nullable()
+  .optional()
+  .transform((w, ctx): { minVolts: number; maxVolts: number } | undefined => {
+    if (!w || (w.minVolts === undefined && w.maxVolts === undefined)) return undefined;
+    if (w.minVolts === undefined) ctx.addIssue({ code: 'custom', path: ['minVolts'], message: 'Give the lowest voltage the input accepts too.' });
+    if (w.maxVolts === undefined) ctx.addIssue({ code: 'custom', path: ['maxVolts'], message: 'Give the highest voltage the input accepts too.' });
+    if (w.minVolts === undefined || w.maxVolts === undefined) return z.NEVER;
+    if (w.minVolts > w.maxVolts) {
+      ctx.addIssue({ code: 'custom', path: ['maxVolts'], message: 'The highest accepted voltage must not be below the lowest.' });
+      return z.NEVER;
+    }
+    return { minVolts: w.minVolts, maxVolts: w.maxVolts };
+  });
+
+const portField = z
+  .strictObject({
+    kind: z.enum(PORT_KINDS, { error: `Choose the connector: ${PORT_KINDS.join(', ')}.` }),
+    direction: z.enum(PORT_DIRECTIONS, { error: 'Choose input, output or both.' }),
+    volts: portFigure('V', MAX_PORT_FIGURE, 'voltage'),
+    amps: portFigure('A', MAX_PORT_FIGURE, 'current'),
+    watts: portFigure('W', MAX_PORT_FIGURE, 'power'),
+    pdProfiles: pdProfilesField,
+    voltageWindow: voltageWindowField,
+    label: z.preprocess((v) => (typeof v === 'string' ? v.trim() || undefined : (v ?? undefined)), z.string().max(100, 'Use at most 100 characters.').optional()),
+    efficiency: z.preprocess(
+      (v) => (v === '' || v === null ? undefined : typeof v === 'string' ? Number(v) : v),
+      z.number({ error: 'Enter the efficiency as a fraction such as 0.9.' }).positive('The efficiency must be greater than 0.').max(1, 'The efficiency is a fraction of at most 1.').optional(),
+    ),
+    source: claimSourceField.optional(),
+  })
+  .superRefine((p, ctx) => {
+    // Field-level reasons first (each names its field), then lib/measure `validatePort` as the final word.
+    let found = false;
+    const issue = (i: { code: 'custom'; path: string[]; message: string }) => {
+      found = true;
+      ctx.addIssue(i);
+    };
+    const kindName = p.kind === 'other' ? 'this connector' : `a ${PORT_KIND_LABELS[p.kind]}`;
+    if (p.pdProfiles && p.kind !== 'usb-c') {
+      issue({ code: 'custom', path: ['pdProfiles'], message: `Only USB-C ports have USB Power Delivery profiles; ${kindName} has none.` });
+    }
+    if (p.voltageWindow && p.direction === 'output') {
+      issue({ code: 'custom', path: ['voltageWindow'], message: 'Only an input has a window of accepted voltages.' });
+    }
+    if ((p.kind === 'mains-input' || p.kind === 'solar-input') && p.direction !== 'input') {
+      issue({ code: 'custom', path: ['direction'], message: `A ${PORT_KIND_LABELS[p.kind]} is always an input.` });
+    }
+    if (p.kind === 'other' && !p.label) {
+      issue({ code: 'custom', path: ['label'], message: 'Name the connector of an "other" port, e.g. "2-pin trailer plug".' });
+    }
+    if (found) return;
+    try {
+      validatePort(portOf(p));
+    } catch (error) {
+      if (!(error instanceof MeasureError)) throw error;
+      ctx.addIssue({ code: 'custom', message: error.message });
+    }
+  });
+
+type PortInputData = z.output<typeof portField>;
+
+/** The lib/measure `Port` of a validated port entry (without its claim source). */
+function portOf(p: Omit<PortInputData, 'source'> & { source?: unknown }): Port {
+  const port: Port = { kind: p.kind, direction: p.direction };
+  if (p.volts !== undefined) port.volts = p.volts;
+  if (p.amps !== undefined) port.amps = p.amps;
+  if (p.watts !== undefined) port.watts = p.watts;
+  if (p.pdProfiles) port.pdProfiles = p.pdProfiles.map((x) => ({ volts: x.volts, amps: x.amps }));
+  if (p.voltageWindow) port.voltageWindow = { ...p.voltageWindow };
+  if (p.label) port.label = p.label;
+  if (p.efficiency !== undefined) port.efficiency = p.efficiency;
+  return port;
+}
+
+const portsField = z.array(portField).max(MAX_PORTS, `List at most ${MAX_PORTS} ports.`);
+
 const thisYear = new Date().getUTCFullYear();
 
 /** The fields a reviewer edits, without the category (fixed at creation). */
@@ -137,6 +295,8 @@ const editableShape = {
   claimSource: claimSourceField.optional().default('packaging'),
   specs: specsField.optional().default({}),
   modes: z.array(modeField).max(12, 'Record at most 12 modes.').optional().default([]),
+  /** Claimed ports (inputs and outputs); each without a source takes `claimSource`. */
+  ports: portsField.optional().default([]),
   /** Why the figures change (shown in the dated "figures updated" note once approved). */
   changeNote: z.string().trim().max(500, 'Use at most 500 characters.').optional().default(''),
 };
@@ -247,4 +407,12 @@ export function claimRows(data: Pick<GearData, 'specs' | 'modes' | 'claimSource'
     }
   }
   return rows;
+}
+
+/** A claimed port: a lib/measure `Port` with where the claim came from. */
+export type PortClaim = Port & { source: ClaimSource };
+
+/** The claimed ports of validated input, in the order given; each without a source takes the item's claim source. */
+export function portClaims(data: Pick<GearData, 'ports' | 'claimSource'>): PortClaim[] {
+  return (data.ports ?? []).map((p) => ({ ...portOf(p), source: p.source ?? data.claimSource }));
 }

@@ -8,6 +8,7 @@ import {
   gearListQuerySchema,
   reviewListQuerySchema,
 } from '@/lib/browse/query';
+import { PORT_DIRECTIONS, PORT_KINDS } from '@/lib/measure';
 import { errorResponses, OPTIONALLY_SIGNED_IN, slugParam, type OpenAPIRegistry } from '../registry';
 
 const TAG = 'Browse and reviews';
@@ -32,6 +33,23 @@ const figure = z
   })
   .meta({ id: 'Figure' });
 
+const port = z
+  .object({
+    kind: z.enum(PORT_KINDS).meta({ description: 'Connector: `usb-a`, `usb-c`, `socket-12v` (12 V accessory socket), `dc-barrel`, `binding-posts`, `genderless-dc`, `mains-input`, `solar-input`, `other` (see `label`).' }),
+    direction: z.enum(PORT_DIRECTIONS),
+    volts: z.number().optional().meta({ description: 'Nominal voltage, V (USB without it: 5 V; a 12 V socket: 12 V).' }),
+    amps: z.number().optional().meta({ description: 'Most current delivered (output) or needed (input), A.' }),
+    watts: z.number().optional().meta({ description: 'Most power delivered (output) or needed (input), W.' }),
+    pdProfiles: z
+      .array(z.object({ volts: z.number(), amps: z.number() }))
+      .optional()
+      .meta({ description: 'USB-C only: USB Power Delivery fixed profiles offered (output) or usable (input).' }),
+    voltageWindow: z.object({ minVolts: z.number(), maxVolts: z.number() }).optional().meta({ description: 'Inputs only: voltages accepted, V, inclusive.' }),
+    label: z.string().optional().meta({ description: 'Name of the connector; always present for `other`.' }),
+    efficiency: z.number().optional().meta({ description: 'Conversion efficiency inside the item at this port, (0, 1].' }),
+  })
+  .meta({ id: 'Port' });
+
 const gearSummary = z
   .object({
     slug: z.string(),
@@ -47,6 +65,10 @@ const gearSummary = z
     sortValue: z.number().nullable().meta({ description: 'The sorted value (price in major units); null when the item lacks it (such items come last).' }),
     reviewed: z.boolean().meta({ description: 'Has a published review.' }),
     status: z.string().optional().meta({ description: 'Only on the caller’s own items (signed-in reads): `draft`, `in-review`, `changes-requested`, `approved`.' }),
+    ports: z
+      .array(port)
+      .optional()
+      .meta({ description: 'Only in `GET /api/v1/gear/{slug}`: the claimed ports (approved ones for a public item), inputs and outputs, in the author’s order.' }),
   })
   .meta({ id: 'GearSummary' });
 
