@@ -15,7 +15,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { sql, type SQL } from 'drizzle-orm';
 import type { Db } from './connection';
-import { livePorts } from './gear-ports';
+import { livePortsOf } from './gear-ports';
 import { gearItems, gearRatios, photos, specs, type GearItem, type Role } from './schema';
 import type { Figure, GearListResponse, GearSummary } from '@/lib/browse/contract';
 import { decodeGearCursor, encodeCursor } from '@/lib/browse/cursor';
@@ -251,7 +251,7 @@ export function getGearSummary(db: Db, slug: string, caller: Caller, options: { 
   const [item] = findReadableGear(db, [slug], caller);
   const summary = summaries(db, [item!], { caller, imperial: options.imperial ?? false })[0]!;
   // The live port rows are the approved ones of a public item (an edit waits in its pending change).
-  return { ...summary, ports: livePorts(db, item!.id).map(({ source: _source, ...port }) => port) };
+  return { ...summary, ports: livePortsOf(db, item!.id) };
 }
 
 export { summaries as gearSummaries };

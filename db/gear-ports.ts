@@ -37,16 +37,24 @@ function claimSourceOf(r: PortRow): ClaimSource {
   return (CLAIM_SOURCES as readonly string[]).includes(r.claimSource ?? '') ? (r.claimSource as ClaimSource) : 'packaging';
 }
 
-/** The claimed ports stored for an item (live rows: the approved ones once the item is public), in order. */
-export function livePorts(db: Q, itemId: string): PortClaim[] {
+function claimedRows(db: Q, itemId: string): PortRow[] {
   return db
     .select()
     .from(gearPorts)
     .where(and(eq(gearPorts.gearItemId, itemId), eq(gearPorts.basis, 'claimed')))
     .orderBy(asc(gearPorts.position))
     .all()
-    .filter((r) => isPortKind(r.kind))
-    .map((r) => ({ ...rowToPort(r), source: claimSourceOf(r) }));
+    .filter((r) => isPortKind(r.kind));
+}
+
+/** The claimed ports stored for an item with their sources (live rows: the approved ones once the item is public), in order. */
+export function livePorts(db: Q, itemId: string): PortClaim[] {
+  return claimedRows(db, itemId).map((r) => ({ ...rowToPort(r), source: claimSourceOf(r) }));
+}
+
+/** The live claimed ports of one item as lib/measure `Port`s (no claim source): the approved ones of a public item. */
+export function livePortsOf(db: Q, itemId: string): Port[] {
+  return claimedRows(db, itemId).map(rowToPort);
 }
 
 /** Replaces an item's claimed ports (inside the caller's transaction). */
