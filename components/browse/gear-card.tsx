@@ -82,7 +82,7 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
           {item.status ? <span className="rounded bg-amber-tint px-1.5 text-xs">Yours · {item.status}</span> : null}
         </p>
       </div>
-      <div className="shrink-0 self-start sm:self-center">
+      <div className="w-full pl-20 sm:w-auto sm:shrink-0 sm:self-center sm:pl-0">
         <AddToSideBySide slug={item.slug} name={item.name} compact />
       </div>
     </li>

@@ -39,7 +39,7 @@ export function SideBySideTable({ view, onMove, onRemove }: Props) {
           helper.display({
             id: `item-${item.slug}`,
             header: () => (
-              <div className="flex min-w-36 flex-col gap-1">
+              <div className="flex min-w-28 flex-col gap-1 sm:min-w-36">
                 <span className="text-xs font-normal text-slate">{item.maker}</span>
                 <Link href={`/gear/${encodeURIComponent(item.slug)}`} className="font-semibold hover:underline">
                   {item.name}
@@ -126,7 +126,7 @@ export function SideBySideTable({ view, onMove, onRemove }: Props) {
                 <th
                   key={header.id}
                   scope="col"
-                  className={`sticky top-0 border-b border-rule bg-card px-3 py-2 align-bottom print:static ${i === 0 ? 'left-0 z-30 min-w-40' : 'z-20'}`}
+                  className={`sticky top-0 border-b border-rule bg-card px-3 py-2 align-bottom print:static ${i === 0 ? 'left-0 z-30 min-w-32 sm:min-w-40' : 'z-20'}`}
                 >
                   {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                 </th>
