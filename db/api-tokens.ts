@@ -108,9 +108,13 @@ export function authenticateApiToken(db: Db, raw: string, now = Date.now()): Tok
   const stored = Buffer.from(row.token.tokenHash, 'hex');
   if (stored.length !== hash.length || !timingSafeEqual(stored, hash)) return null;
   if (row.token.revokedAt) return null;
-  db.update(apiTokens)
-    .set({ lastUsedAt: new Date(now) })
-    .where(and(eq(apiTokens.id, row.token.id), or(isNull(apiTokens.lastUsedAt), lt(apiTokens.lastUsedAt, new Date(now - LAST_USED_RESOLUTION_MS)))))
-    .run();
+  const lastUsed = row.token.lastUsedAt?.getTime();
+  // The read row already says whether a write is due: most requests take no write lock at all.
+  if (lastUsed === undefined || lastUsed < now - LAST_USED_RESOLUTION_MS) {
+    db.update(apiTokens)
+      .set({ lastUsedAt: new Date(now) })
+      .where(and(eq(apiTokens.id, row.token.id), or(isNull(apiTokens.lastUsedAt), lt(apiTokens.lastUsedAt, new Date(now - LAST_USED_RESOLUTION_MS)))))
+      .run();
+  }
   return { user: row.user, tokenId: row.token.id, scope: row.token.scope };
 }
