@@ -6,7 +6,7 @@ import { AppError } from '@/lib/http/errors';
 import { parseWith } from '@/lib/http/api';
 import { CHEMISTRIES, isCategory, MeasureError, solarOutput, type Chemistry } from '@/lib/measure';
 import { decodeSeries } from '@/lib/readings/encoding';
-import { kitInputSchema, kitPatchSchema, type KitEntryInput, type KitInput } from '@/lib/kits/schemas';
+import { FREE_ROLES, kitInputSchema, kitPatchSchema, portSchema, type FreeRole, type KitEntryInput, type KitInput, type KitPort } from '@/lib/kits/schemas';
 import { isSky, SKY_LABELS, type Sky } from '@/lib/kits/sky';
 import type { KitCatalog, KitCatalogItem, PairedSkyShare } from '@/lib/kits/types';
 
@@ -199,6 +199,9 @@ function entryFromRow(row: EntryRow): KitEntryInput {
     entry.freeMassG = row.freeMassG;
     entry.freePrice = row.freePriceMinor !== null && row.freePriceCurrency ? { amountMinor: row.freePriceMinor, currency: row.freePriceCurrency } : null;
     entry.freeDrawW = row.freeDrawW;
+    entry.freeRole = (FREE_ROLES as readonly string[]).includes(row.freeRole ?? '') ? (row.freeRole as FreeRole) : null;
+    entry.freePorts = storedPorts(row.freePorts);
+    entry.freeEfficiency = row.freeEfficiency;
   }
   entry.loadMode = row.loadMode;
   entry.hoursPerDay = row.hoursPerDay;
@@ -206,6 +209,13 @@ function entryFromRow(row: EntryRow): KitEntryInput {
   entry.chemistry = (CHEMISTRIES as readonly string[]).includes(row.chemistry ?? '') ? (row.chemistry as Chemistry) : null;
   entry.depthOfDischarge = row.depthOfDischarge;
   return entry;
+}
+
+/** Ports as stored, checked again on the way out: a row that no longer passes is read as "no ports". */
+function storedPorts(value: unknown): KitPort[] | null {
+  if (value === null || value === undefined) return null;
+  const parsed = portSchema.array().max(16).safeParse(value);
+  return parsed.success ? parsed.data : null;
 }
 
 function recordFromRows(kit: KitRow, entries: EntryRow[]): OwnKitRecord {
@@ -323,6 +333,9 @@ function entryValues(kitId: string, entries: readonly KitEntryInput[]) {
     freePriceMinor: e.gearItemId ? null : (e.freePrice?.amountMinor ?? null),
     freePriceCurrency: e.gearItemId ? null : (e.freePrice?.currency ?? null),
     freeDrawW: e.gearItemId ? null : (e.freeDrawW ?? null),
+    freeRole: e.gearItemId ? null : (e.freeRole ?? null),
+    freePorts: e.gearItemId ? null : (e.freePorts ?? null),
+    freeEfficiency: e.gearItemId ? null : (e.freeEfficiency ?? null),
     loadMode: e.loadMode ?? null,
     hoursPerDay: e.hoursPerDay ?? null,
     dutyCycle: e.dutyCycle ?? null,

@@ -18,7 +18,7 @@ function Figure({ label, value, hint, testId }: { label: string; value: string; 
   );
 }
 
-const SERIOUS = new Set<KitWarning['code']>(['does-not-close', 'load-exceeds-battery', 'airline-cargo-only', 'autonomy-under-one-day']);
+const SERIOUS = new Set<KitWarning['code']>(['does-not-close', 'load-exceeds-battery', 'load-exceeds-path', 'airline-cargo-only', 'autonomy-under-one-day']);
 
 /** The power budget: headline, figures, warnings, day-by-day chart with a table alternative, and the lines it was built from. */
 export function BudgetPanel({ budget, tripDays }: { budget: KitBudget; tripDays: number }) {
@@ -66,7 +66,16 @@ export function BudgetPanel({ budget, tripDays }: { budget: KitBudget; tripDays:
         <>
           <dl className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
             <Figure label="Used per day" value={`${fmt(r.dailyLoadWh)} Wh`} hint="What the devices use: watts × hours × duty × quantity." testId="fig-load" />
-            <Figure label="Taken from storage per day" value={`${fmt(r.dailyDrawWh)} Wh`} hint="Used ÷ conversion efficiency (converters and cables lose some)." testId="fig-draw" />
+            <Figure
+              label="Taken from storage per day"
+              value={`${fmt(r.dailyDrawWh)} Wh`}
+              hint={
+                budget.loads.some((l) => l.efficiencyFrom === 'path')
+                  ? 'Each load’s use ÷ the efficiency of its charging path, or the kit’s conversion efficiency where it has none (see how each item counts).'
+                  : 'Used ÷ conversion efficiency (converters and cables lose some).'
+              }
+              testId="fig-draw"
+            />
             <Figure label="Gathered per day" value={`${fmt(r.dailySolarWh)} Wh`} hint="Panel watts × peak sun hours × sky share × (1 − losses)." testId="fig-solar" />
             <Figure label="Net per day" value={`${r.netDailyWh >= 0 ? '+' : '−'}${fmt(Math.abs(r.netDailyWh))} Wh`} hint="Gathered − taken. Below zero, the batteries run down." testId="fig-net" />
             <Figure
@@ -131,7 +140,8 @@ function BudgetLines({ budget }: { budget: KitBudget }) {
                 <th scope="col" className="pr-3">Hours a day</th>
                 <th scope="col" className="pr-3">Duty</th>
                 <th scope="col" className="pr-3">Qty</th>
-                <th scope="col">Wh a day</th>
+                <th scope="col" className="pr-3">Wh a day</th>
+                <th scope="col">Efficiency used</th>
               </tr>
             </thead>
             <tbody>
@@ -147,7 +157,11 @@ function BudgetLines({ budget }: { budget: KitBudget }) {
                   <td className="pr-3 font-mono">{fmt(l.hoursPerDay, 2)}</td>
                   <td className="pr-3 font-mono">{fmtPercent(l.dutyCycle)}</td>
                   <td className="pr-3 font-mono">{l.quantity}</td>
-                  <td className="font-mono">{fmt(l.dailyWh, 2)}</td>
+                  <td className="pr-3 font-mono">{fmt(l.dailyWh, 2)}</td>
+                  <td data-testid="load-efficiency">
+                    <span className="font-mono">{fmtPercent(l.efficiency)}</span>{' '}
+                    <span className="text-xs text-slate">{l.efficiencyFrom === 'path' ? `its charging path: ${l.pathText}` : 'the kit’s conversion efficiency'}</span>
+                  </td>
                 </tr>
               ))}
             </tbody>

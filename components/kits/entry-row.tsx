@@ -6,6 +6,7 @@ import { Button, Field, TextInput } from '@/components/ui/form';
 import { CHEMISTRIES, isCurrencyCode, moneyFromMajor, moneyToMajor } from '@/lib/measure';
 import { budgetRole, CHEMISTRY_LABELS, defaultMode, depthSource, drawModes, pickSpec, UNPUBLISHED_ITEM, type KitCatalogItem, type KitFormValues, type KitInput } from '@/lib/kits';
 import { fmt, fmtPercent } from './format';
+import { FreePowerFields } from './free-power-fields';
 
 export const optionalNumber = { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v)) };
 export const requiredNumber = { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? Number.NaN : Number(v)) };
@@ -118,6 +119,11 @@ export function EntryRow({ index, item, hidden, form, value, onRemove }: { index
         {item && role === 'panel' ? <p className="text-sm sm:col-span-3">Rated {fmt(pickSpec(item, 'ratedPower')?.value ?? 0)} W in full sun ({pickSpec(item, 'ratedPower')?.basis}).</p> : null}
         {item && role === 'none' ? <p className="text-sm text-slate sm:col-span-3">Counted in the totals; it neither uses nor stores energy in the budget.</p> : null}
       </div>
+      {!item && !hidden ? (
+        <div className="mt-4 border-t border-rule pt-3">
+          <FreePowerFields index={index} form={form} />
+        </div>
+      ) : null}
       <Button type="button" variant="quiet" className="mt-3" onClick={onRemove} aria-label={`Remove ${name}`}>
         Remove
       </Button>

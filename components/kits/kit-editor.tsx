@@ -24,6 +24,7 @@ import {
   type Sky,
 } from '@/lib/kits';
 import { BudgetPanel } from './budget-panel';
+import { ChargingPathsPanel } from './charging-paths-panel';
 import { EntryRow, optionalNumber, requiredNumber } from './entry-row';
 import { fmtPercent } from './format';
 import { KitCautions } from './kit-cautions';
@@ -362,6 +363,7 @@ export function KitEditor({ catalog, initial, mode, units = 'metric' }: { catalo
 
       <div className="space-y-6">
         <KitTotalsPanel totals={totals} units={units} />
+        <ChargingPathsPanel charging={budget.charging} />
         <BudgetPanel budget={budget} tripDays={kit.tripDays} />
         <KitCautions />
       </div>

@@ -4,7 +4,9 @@
  */
 import {
   airlineBand,
+  DEFAULT_CONVERSION_EFFICIENCY,
   DEFAULT_DEPTH_OF_DISCHARGE,
+  formatFigure,
   MeasureError,
   powerBudget,
   type AirlineBand,
@@ -15,6 +17,7 @@ import {
   type PowerBudgetInput,
   type PowerBudgetResult,
 } from '@/lib/measure';
+import { budgetPath, kitChargingPaths, pathText, type KitChargingPaths } from './paths';
 import { entryName, pickSpec, resolveEntries, type ResolvedEntry } from './resolve';
 import type { KitEntryInput, KitInput } from './schemas';
 import type { KitCatalog, KitCatalogItem, SpecBasis } from './types';
@@ -82,6 +85,12 @@ export interface LoadLine {
   quantity: number;
   /** watts × hours × duty × quantity, Wh a day. */
   dailyWh: number;
+  /** Share of the energy taken from storage that reaches the device. */
+  efficiency: number;
+  /** 'path': the best charging path's efficiency from its battery or bank; 'kit': the kit's one figure. */
+  efficiencyFrom: 'path' | 'kit';
+  /** The path used, in words (efficiencyFrom 'path'). */
+  pathText: string | null;
 }
 
 export interface StorageLine {
@@ -118,7 +127,9 @@ export type KitWarningCode =
   | 'airline-cargo-only'
   | 'chemistry-unknown'
   | 'hours-missing'
-  | 'no-capacity';
+  | 'no-capacity'
+  | 'load-exceeds-path'
+  | 'no-path';
 
 export interface KitWarning {
   code: KitWarningCode;
@@ -135,6 +146,8 @@ export interface KitBudget {
   result: PowerBudgetResult | null;
   problem: string | null;
   warnings: KitWarning[];
+  /** The kit's charging paths (lib/kits/paths.ts), whose efficiencies the loads use where known. */
+  charging: KitChargingPaths;
 }
 
 type BudgetSettings = Pick<KitInput, 'tripDays' | 'peakSunHours' | 'skyShare' | 'lossFraction' | 'conversionEfficiency'>;
@@ -154,6 +167,9 @@ function loadLines(e: ResolvedEntry, warnings: KitWarning[]): LoadLine[] {
     dutyCycle,
     quantity: e.quantity,
     dailyWh: watts * hoursPerDay * dutyCycle * e.quantity,
+    efficiency: 1,
+    efficiencyFrom: 'kit',
+    pathText: null,
   });
   let lines: LoadLine[] = [];
   if (e.kind === 'free') {
@@ -256,8 +272,18 @@ export function kitBudget(kit: BudgetSettings & { entries: readonly KitEntryInpu
     }
   }
 
+  const charging = kitChargingPaths(kit, catalog);
+  applyPaths(loads, charging, kit.conversionEfficiency ?? DEFAULT_CONVERSION_EFFICIENCY, warnings);
+
   const input: PowerBudgetInput = {
-    loads: loads.map<BudgetLoad>((l) => ({ name: `${l.name}${l.mode ? ` (${l.mode})` : ''}`, watts: l.watts, hoursPerDay: l.hoursPerDay, dutyCycle: l.dutyCycle, quantity: l.quantity })),
+    loads: loads.map<BudgetLoad>((l) => ({
+      name: `${l.name}${l.mode ? ` (${l.mode})` : ''}`,
+      watts: l.watts,
+      hoursPerDay: l.hoursPerDay,
+      dutyCycle: l.dutyCycle,
+      quantity: l.quantity,
+      ...(l.efficiencyFrom === 'path' ? { efficiency: l.efficiency } : {}),
+    })),
     batteries: storage.map<BudgetBattery>((s) => ({
       name: s.name,
       capacityWh: s.capacityWh,
@@ -289,7 +315,39 @@ export function kitBudget(kit: BudgetSettings & { entries: readonly KitEntryInpu
     }
   }
   const budgetWarnings: KitWarning[] = (result?.warnings ?? []).map((w) => ({ code: w.code, message: w.message, ...(w.day !== undefined ? { day: w.day } : {}) }));
-  return { loads, storage, panels, input, result, problem, warnings: [...budgetWarnings, ...warnings] };
+  return { loads, storage, panels, input, result, problem, warnings: [...budgetWarnings, ...warnings], charging };
+}
+
+/**
+ * Each load whose device has a charging path from a battery or bank uses that path's efficiency
+ * (the most efficient such path) instead of the kit's one figure; warns when the draw is more than
+ * the path delivers, and when a device that lists its ports has no path at all.
+ */
+function applyPaths(loads: LoadLine[], charging: KitChargingPaths, kitEfficiency: number, warnings: KitWarning[]): void {
+  const warned = new Set<number>();
+  for (const line of loads) {
+    line.efficiency = kitEfficiency;
+    const device = charging.devices.find((d) => d.index === line.index);
+    if (!device) continue;
+    const path = budgetPath(device);
+    if (path && path.fromStorageEfficiency !== null) {
+      line.efficiency = path.fromStorageEfficiency;
+      line.efficiencyFrom = 'path';
+      line.pathText = pathText(path);
+      if (path.maxWatts !== null && line.watts > path.maxWatts * (1 + 1e-9)) {
+        warnings.push({
+          code: 'load-exceeds-path',
+          message: `${line.name}${line.mode ? ` (${line.mode})` : ''} draws ${formatFigure(line.watts)} W, more than its charging path delivers (at most ${formatFigure(path.maxWatts)} W at its weakest step).`,
+        });
+      }
+    } else if (device.listsPorts && device.paths.length === 0 && !warned.has(line.index)) {
+      warned.add(line.index);
+      warnings.push({
+        code: 'no-path',
+        message: `${line.name}: nothing in the kit can run or charge it${device.reasons[0] ? ` (${device.reasons[0]})` : ''}. Its use still counts at the kit's ${formatFigure(kitEfficiency * 100)} % efficiency.`,
+      });
+    }
+  }
 }
 
 /** Energy level (Wh) below which the batteries should not go: capacity − usable. */

@@ -6,3 +6,4 @@ export * from './resolve';
 export * from './budget';
 export * from './totals';
 export * from './csv';
+export * from './paths';

@@ -4,7 +4,18 @@
  * shareToken …) are refused with a field error, never stored.
  */
 import { z } from 'zod';
-import { CHEMISTRIES, isCurrencyCode } from '@/lib/measure';
+import {
+  CHEMISTRIES,
+  findChargingPaths,
+  isCurrencyCode,
+  MeasureError,
+  PD_MAX_AMPS,
+  PD_MAX_VOLTS,
+  PORT_DIRECTIONS,
+  PORT_KINDS,
+  validatePort,
+  type Port,
+} from '@/lib/measure';
 import { SKIES } from './sky';
 
 export const MAX_TRIP_DAYS = 3650;
@@ -29,6 +40,75 @@ export const priceSchema = z.strictObject({
   currency: z.string().refine((code): boolean => isCurrencyCode(code), 'Use a three-letter ISO 4217 currency code such as USD or EUR.'),
 });
 
+const MAX_PORT_FIGURE = 1e6;
+export const MAX_FREE_PORTS = 16;
+const portFigure = (what: string) => finite(what).gt(0, `${what} must be more than 0 (leave it empty when not stated).`).max(MAX_PORT_FIGURE, `${what} is too large.`);
+
+/**
+ * A port of a free-form entry: lib/measure `Port`. The cross-field rules (PD profiles only on USB-C,
+ * a voltage window only on an input, a label for "other") are lib/measure `validatePort`'s.
+ */
+export const portSchema = z
+  .strictObject({
+    kind: z.enum(PORT_KINDS, { error: `Connector must be one of ${PORT_KINDS.join(', ')}.` }),
+    direction: z.enum(PORT_DIRECTIONS, { error: `Direction must be one of ${PORT_DIRECTIONS.join(', ')}.` }),
+    volts: optionalNumber(portFigure('Volts')),
+    amps: optionalNumber(portFigure('Amps')),
+    watts: optionalNumber(portFigure('Watts')),
+    pdProfiles: z
+      .array(
+        z.strictObject({
+          volts: finite('Profile volts').gt(0, 'Profile volts must be more than 0.').max(PD_MAX_VOLTS, `USB Power Delivery goes up to ${PD_MAX_VOLTS} V.`),
+          amps: finite('Profile amps').gt(0, 'Profile amps must be more than 0.').max(PD_MAX_AMPS, `USB Power Delivery goes up to ${PD_MAX_AMPS} A.`),
+        }),
+      )
+      .min(1, 'List at least one Power Delivery profile, or leave them out.')
+      .max(16, 'At most 16 Power Delivery profiles.')
+      .nullable()
+      .optional(),
+    voltageWindow: z
+      .strictObject({ minVolts: portFigure('Lowest accepted voltage'), maxVolts: portFigure('Highest accepted voltage') })
+      .nullable()
+      .optional(),
+    label: z.string().trim().max(100, 'Use at most 100 characters for a connector label.').nullable().optional(),
+    efficiency: optionalNumber(finite('Efficiency').gt(0, 'Efficiency must be more than 0.').max(1, 'Efficiency is at most 1 (100 %).')),
+  })
+  .superRefine((port, ctx) => {
+    try {
+      validatePort(port, 'This port');
+    } catch (error) {
+      if (!(error instanceof MeasureError)) throw error;
+      ctx.addIssue({ code: 'custom', message: error.message });
+    }
+  });
+
+/** What a free-form entry is in charging paths (lib/measure KIT_POWER_ROLES). */
+export const FREE_ROLES = ['device', 'storage', 'source', 'cable', 'adapter'] as const;
+export type FreeRole = (typeof FREE_ROLES)[number];
+
+export type KitPort = z.output<typeof portSchema>;
+
+/** The charging-path item of a free-form entry; used by lib/kits/paths.ts and to check an entry on the way in. */
+export function freePowerItem(
+  id: string,
+  name: string,
+  quantity: number,
+  entry: { freeRole?: FreeRole | null; freePorts?: KitPort[] | null; freeEfficiency?: number | null },
+) {
+  const role = entry.freeRole ?? 'device';
+  const ports = (entry.freePorts ?? []).map(cleanPort);
+  if (role === 'cable' || role === 'adapter') {
+    const [from, to] = ports;
+    return { id, name, role, quantity, from, to, ...(entry.freeEfficiency != null ? { efficiency: entry.freeEfficiency } : {}) };
+  }
+  return { id, name, role, quantity, ports };
+}
+
+/** A port without its null fields (lib/measure takes absent, not null). */
+export function cleanPort(port: KitPort) {
+  return Object.fromEntries(Object.entries(port).filter(([, v]) => v !== null && v !== undefined && v !== '')) as unknown as Port;
+}
+
 export const kitEntrySchema = z
   .strictObject({
     /** A catalog item id, or null for a free-form entry. */
@@ -47,6 +127,15 @@ export const kitEntrySchema = z
     dutyCycle: optionalNumber(duty),
     chemistry: z.enum(CHEMISTRIES, { error: `Chemistry must be one of ${CHEMISTRIES.join(', ')}.` }).nullable().optional(),
     depthOfDischarge: optionalNumber(depth),
+    /** Free-form entries: what the thing is in charging paths (null = a device when it has ports or a draw). */
+    freeRole: z.enum(FREE_ROLES, { error: `Role must be one of ${FREE_ROLES.join(', ')}.` }).nullable().optional(),
+    /**
+     * Free-form entries: the ports. A cable or adapter has exactly two: first the end that plugs into an
+     * output (direction "input"), then the end that feeds an input (direction "output").
+     */
+    freePorts: z.array(portSchema).max(MAX_FREE_PORTS, `List at most ${MAX_FREE_PORTS} ports.`).nullable().optional(),
+    /** Free-form adapter (or lossy cable): conversion efficiency, (0, 1]. */
+    freeEfficiency: optionalNumber(finite('Efficiency').gt(0, 'Efficiency must be more than 0.').max(1, 'Efficiency is at most 1 (100 %).')),
   })
   .superRefine((entry, ctx) => {
     const hasItem = typeof entry.gearItemId === 'string';
@@ -54,6 +143,30 @@ export const kitEntrySchema = z
     if (!hasItem && !hasName) ctx.addIssue({ code: 'custom', path: ['freeName'], message: 'Give the entry a name, or pick an item from the catalog.' });
     if (hasItem && (hasName || entry.freeMassG != null || entry.freePrice != null || entry.freeDrawW != null)) {
       ctx.addIssue({ code: 'custom', path: ['gearItemId'], message: 'A catalog entry takes its name, mass, price and draw from the catalog.' });
+    }
+    if (hasItem && (entry.freeRole != null || entry.freePorts != null || entry.freeEfficiency != null)) {
+      ctx.addIssue({ code: 'custom', path: ['gearItemId'], message: 'A catalog entry takes its ports from the catalog.' });
+      return;
+    }
+    const link = entry.freeRole === 'cable' || entry.freeRole === 'adapter';
+    const ports = entry.freePorts ?? [];
+    if (link) {
+      if (ports.length !== 2 || ports[0]?.direction !== 'input' || ports[1]?.direction !== 'output') {
+        ctx.addIssue({ code: 'custom', path: ['freePorts'], message: 'A cable or adapter has two ends: the one that plugs into an output, then the one that feeds a device.' });
+        return;
+      }
+    } else if (entry.freeEfficiency != null) {
+      ctx.addIssue({ code: 'custom', path: ['freeEfficiency'], message: 'Only a cable or adapter has an efficiency of its own; give a port its efficiency instead.' });
+      return;
+    }
+    if (entry.freeRole == null && entry.freePorts == null) return;
+    // The path finder's own checks (a cable states no voltage, an adapter states its efficiency and output voltage).
+    try {
+      findChargingPaths({ items: [freePowerItem('entry', entry.freeName || 'This entry', entry.quantity, entry)] });
+    } catch (error) {
+      if (!(error instanceof MeasureError)) throw error;
+      const message = error.message.replace(/^Item 1 \([^)]*\): /, '');
+      ctx.addIssue({ code: 'custom', path: [/efficiency/i.test(message) && link ? 'freeEfficiency' : 'freePorts'], message });
     }
   });
 

@@ -2,7 +2,7 @@
  * The shapes lib/kits computes on. Pure data: the catalog side comes from db/kits.ts (only items the
  * viewer may see), the kit side from the form, localStorage or the database.
  */
-import type { Category, Chemistry } from '@/lib/measure';
+import type { Category, Chemistry, Port } from '@/lib/measure';
 import type { Sky } from './sky';
 
 export type SpecBasis = 'claimed' | 'measured';
@@ -36,6 +36,8 @@ export interface KitCatalogItem {
   priceCurrency: string | null;
   specs: KitSpec[];
   pairedSkyShares: PairedSkyShare[];
+  /** Approved ports of the item (lib/measure `Port`); absent or empty when the catalog lists none. */
+  ports?: Port[];
 }
 
 /** Catalog items by id. An entry whose item is missing here is shown as "unpublished item". */

@@ -4,6 +4,7 @@ import { notFound } from 'next/navigation';
 import { getDb } from '@/db';
 import { getSharedKit } from '@/db/kits';
 import { BudgetPanel } from '@/components/kits/budget-panel';
+import { ChargingPathsPanel } from '@/components/kits/charging-paths-panel';
 import { fmt, fmtPercent } from '@/components/kits/format';
 import { KitCautions } from '@/components/kits/kit-cautions';
 import { KitTotalsPanel } from '@/components/kits/kit-totals';
@@ -93,6 +94,7 @@ export default async function SharedKitPage({ params }: { params: Promise<{ toke
           <KitTotalsPanel totals={totals} units={await getUnitSystem()} />
         </div>
         <div className="space-y-6">
+          <ChargingPathsPanel charging={budget.charging} />
           <BudgetPanel budget={budget} tripDays={kit.tripDays} />
           <KitCautions />
         </div>
