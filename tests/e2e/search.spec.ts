@@ -80,6 +80,7 @@ test('publishing shows a review at once on the cached pages and in search; retra
   await expect(buy.getByRole('link', { name: /Dunlow Outfitters web shop/ })).toHaveAttribute('rel', 'sponsored noopener');
   await expect(buy.getByRole('link', { name: /Basecamp Power Depot/ })).toHaveAttribute('rel', 'sponsored nofollow noopener');
   await expect(buy.getByTestId('affiliate-mark')).toHaveText(['affiliate link']);
+  await buy.screenshot({ path: 'test-results/where-to-buy.png' });
   await buy.getByRole('link', { name: 'How we handle links and money' }).click();
   await expect(reader.getByRole('heading', { level: 1 })).toContainText('Disclosure');
   await reader.goto('/search?q=cool+box');
@@ -117,4 +118,24 @@ test('readers compare an earlier revision with the current one, word by word', a
   await reader.screenshot({ path: 'test-results/review-changes.png', fullPage: true });
   expect((await reader.goto('/reviews/glowmere-hearthglow-400-lantern-review/changes?from=7'))?.status()).toBe(404);
   expect((await reader.goto('/reviews/northcairn-fellbeam-350-headlamp-review/changes?from=1'))?.status()).toBe(404);
+});
+
+test('an author adds where-to-buy links to a returned draft: http is refused with a message, https is saved', async ({ browser }) => {
+  const author = await open(browser, 'reviewer');
+  await author.goto('/write/demo-review-folding-panels');
+  const editor = author.getByTestId('buy-links-editor');
+  await editor.getByRole('button', { name: 'Add a link' }).click();
+  await editor.getByLabel('Shop or page').fill('Meadow Gear Exchange');
+  await editor.getByLabel('Address (https://…)').fill('http://meadow-gear.example/panels');
+  await editor.getByLabel(/Affiliate link/).check();
+  await editor.getByRole('button', { name: 'Save links' }).click();
+  await expect(author.getByTestId('buy-links-message')).toHaveText('Please correct the marked links. Nothing was saved.');
+  await expect(author.getByTestId('buy-0-url-error')).toContainText('https://');
+  await editor.getByLabel('Address (https://…)').fill('https://meadow-gear.example/panels');
+  await editor.getByRole('button', { name: 'Save links' }).click();
+  await expect(author.getByTestId('buy-links-message')).toHaveText('Saved 1 link.');
+  await author.reload();
+  await expect(author.getByTestId('buy-links-editor').getByLabel('Address (https://…)')).toHaveValue('https://meadow-gear.example/panels');
+  await author.getByTestId('buy-links-editor').screenshot({ path: 'test-results/buy-links-editor.png' });
+  expect(dialogs).toEqual([]);
 });
