@@ -83,6 +83,10 @@ const MAX_DEPTH = 3;
 const MAX_ENUM_SHOWN = 8;
 /** Longer patterns help programs, not readers: the guide points to the document instead. */
 const MAX_PATTERN_SHOWN = 28;
+/** A pattern made only of digits, signs, a decimal point and an exponent: a number sent as text. */
+const NUMBER_PATTERN = /^\^[-?()\\d{}0-9,.*+|:eE[\]]+\$$/;
+/** Parameters sharing a prefix (`min.mass`, `min.lm-per-g` …) are listed once as `min.{key}` from this many on. */
+const PARAM_GROUP_MIN = 6;
 
 type Components = Record<string, Schema>;
 
@@ -140,7 +144,7 @@ export function constraintNotes(input: Schema | undefined, components: Component
   const low = schema.exclusiveMinimum !== undefined ? `> ${schema.exclusiveMinimum}` : schema.minimum !== undefined ? `≥ ${schema.minimum}` : null;
   const high = schema.exclusiveMaximum !== undefined ? `< ${schema.exclusiveMaximum}` : schema.maximum !== undefined ? `≤ ${schema.maximum}` : null;
   if (low || high) notes.push([low, high].filter(Boolean).join(', '));
-  if (schema.pattern) notes.push(schema.pattern.length <= MAX_PATTERN_SHOWN ? `pattern ${schema.pattern}` : 'a fixed format (its pattern is in openapi.json)');
+  if (schema.pattern) notes.push(NUMBER_PATTERN.test(schema.pattern) ? 'a number, written as text' : schema.pattern.length <= MAX_PATTERN_SHOWN ? `pattern ${schema.pattern}` : 'a fixed format (its pattern is in openapi.json)');
   if (schema.default === '') notes.push('default empty');
   else if (schema.default !== undefined && !(typeof schema.default === 'object' && schema.default !== null)) notes.push(`default ${JSON.stringify(schema.default)}`);
   for (const v of schema.anyOf ?? schema.oneOf ?? []) if (!isNullOnly(v)) notes.push(...constraintNotes(v, components));
@@ -215,6 +219,35 @@ type Operation = {
   responses?: Record<string, { description?: string; content?: Record<string, { schema?: Schema }> }>;
 };
 
+/** Optional parameters named `<prefix>.<key>` with one type, many of them: one row `<prefix>.{key}` listing the keys. */
+export function groupParameters(params: GuideParameter[]): GuideParameter[] {
+  const groups = new Map<string, GuideParameter[]>();
+  for (const p of params) {
+    const dot = p.name.indexOf('.');
+    if (dot > 0 && !p.required) groups.set(`${p.in} ${p.name.slice(0, dot)} ${p.type}`, [...(groups.get(`${p.in} ${p.name.slice(0, dot)} ${p.type}`) ?? []), p]);
+  }
+  const out: GuideParameter[] = [];
+  const done = new Set<string>();
+  for (const p of params) {
+    const dot = p.name.indexOf('.');
+    const key = dot > 0 && !p.required ? `${p.in} ${p.name.slice(0, dot)} ${p.type}` : null;
+    const group = key ? groups.get(key)! : null;
+    if (!key || !group || group.length < PARAM_GROUP_MIN) {
+      out.push(p);
+      continue;
+    }
+    if (done.has(key)) continue;
+    done.add(key);
+    const prefix = p.name.slice(0, dot);
+    const keys = group.map((g) => g.name.slice(dot + 1));
+    // Notes that differ only by the key read as one; other differences (a unit in brackets) are left out.
+    const variants = new Set(group.map((g) => g.notes.split(g.name.slice(dot + 1)).join('{key}')));
+    const notes = variants.size === 1 ? [...variants][0]! : p.notes.split(keys[0]!).join('{key}').replace(/\s*\([^)]*\)/g, '');
+    out.push({ ...p, name: `${prefix}.{key}`, notes: `${notes} · {key} is one of: ${keys.join(', ')}` });
+  }
+  return out;
+}
+
 export function operationId(method: string, path: string): string {
   return `${method}-${path.replace(/^\/api\/v1\//, '').replace(/[{}]/g, '').replace(/[^A-Za-z0-9]+/g, '-')}`.replace(/-+$/, '');
 }
@@ -241,13 +274,15 @@ export function apiGuide(doc: OpenApiDocument): GuideArea[] {
         summary: op.summary ?? '',
         description: op.description ?? '',
         access: accessOf(op.security),
-        parameters: (op.parameters ?? []).map((p) => ({
-          name: p.name,
-          in: p.in,
-          type: typeLabel(p.schema, components),
-          required: p.required ?? false,
-          notes: [p.description, ...constraintNotes(p.schema, components)].filter(Boolean).join(' · '),
-        })),
+        parameters: groupParameters(
+          (op.parameters ?? []).map((p) => ({
+            name: p.name,
+            in: p.in,
+            type: typeLabel(p.schema, components),
+            required: p.required ?? false,
+            notes: [p.description, ...constraintNotes(p.schema, components)].filter(Boolean).join(' · '),
+          })),
+        ),
         bodies: Object.entries(op.requestBody?.content ?? {}).map(([mediaType, media]) => {
           const fields = schemaFields(media.schema, components);
           return { mediaType, fields, shape: fields.length ? null : typeLabel(media.schema, components) };

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { buildOpenApiDocument } from '@/lib/openapi/document';
-import { apiGuide, constraintNotes, schemaFields, typeLabel } from '@/lib/openapi/guide';
+import { apiGuide, constraintNotes, groupParameters, schemaFields, typeLabel } from '@/lib/openapi/guide';
 import { readingsExample } from '@/app/api-guide/example';
 
 const asSchema = (s: z.ZodType) => z.toJSONSchema(s, { target: 'draft-2020-12', io: 'input' }) as Parameters<typeof typeLabel>[0];
@@ -62,5 +62,19 @@ describe('API guide: the document in words', () => {
     expect(Object.keys(body.content)).toContain(sent);
     expect(example.command).toContain('Authorization: Bearer $TRAILBENCH_TOKEN');
     expect(example.command).toContain('/api/v1/field-tests/$FIELD_TEST_ID/readings');
+  });
+});
+
+describe('API guide: parameters sharing a prefix', () => {
+  it('lists six or more `prefix.key` parameters of one type once, with the keys; fewer stay as they are', () => {
+    const keys = ['mass', 'luminousFlux', 'runtime', 'ratedEnergy', 'ratedPower', 'lm-per-g'];
+    const params = [
+      { name: 'sort', in: 'query', type: 'string', required: false, notes: '' },
+      ...keys.map((k, i) => ({ name: `min.${k}`, in: 'query', type: 'string', required: false, notes: `Keep items whose ${k} is at least this (unit ${i}).` })),
+      { name: 'max.mass', in: 'query', type: 'string', required: false, notes: 'Keep items whose mass is at most this.' },
+    ];
+    const grouped = groupParameters(params);
+    expect(grouped.map((p) => p.name)).toEqual(['sort', 'min.{key}', 'max.mass']);
+    expect(grouped[1]!.notes).toBe(`Keep items whose {key} is at least this. · {key} is one of: ${keys.join(', ')}`);
   });
 });
