@@ -253,7 +253,11 @@ export function BestValue({ units }: { units: UnitSystem }) {
               </Link>
             ) : null}
             {query.data && query.data.excludedOtherCurrency > 0 ? (
-              <p className="text-xs text-slate">{query.data.excludedOtherCurrency} items priced in other currencies are left out.</p>
+              <p className="text-xs text-slate">
+                {query.data.excludedOtherCurrency === 1
+                  ? '1 item priced in another currency is left out.'
+                  : `${query.data.excludedOtherCurrency} items priced in other currencies are left out.`}
+              </p>
             ) : null}
             {plot.missing.length > 0 ? (
               <p className="text-xs text-slate">
