@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, or } from 'drizzle-orm';
 import { randomBytes, randomUUID } from 'node:crypto';
 import type { Db } from './connection';
+import { portsOfGear } from './gear-ports';
 import { fieldTests, gearItems, kitEntries, kits, readings, specs, trials } from './schema';
 import { AppError } from '@/lib/http/errors';
 import { parseWith } from '@/lib/http/api';
@@ -106,6 +107,12 @@ export function readableCatalog(db: Db, viewer: KitViewer | null, ids?: readonly
     };
   }
   for (const s of specRows) catalog[s.gearItemId]?.specs.push({ key: s.key, mode: s.mode, basis: s.basis, value: s.value });
+  // Approved ports only (an owner's draft ports are not part of a kit's charging paths yet).
+  const ports = portsOfGear(db, itemIds);
+  for (const r of rows) {
+    const list = ports[r.id] ?? [];
+    if (list.length > 0) (catalog[r.id] as KitCatalogItem).ports = list;
+  }
   const panels = Object.values(catalog).filter((i) => i.category === 'solar-panel');
   if (panels.length > 0) {
     const shares = pairedSkyShares(db, panels);
