@@ -11,6 +11,7 @@ import { formatQuantity } from '@/lib/gear/format';
 import { tryParseQuantity, TYPED_UNITS, type TypedQuantity } from '@/lib/gear/parse-quantity';
 import { gearInputSchema } from '@/lib/gear/schemas';
 import { Button, Field, FormMessage, TextInput } from '@/components/ui/form';
+import { PortsFieldset } from './ports-fieldset';
 
 const CURRENCIES = ['USD', 'EUR', 'GBP', 'CAD', 'AUD', 'NZD', 'CHF', 'SEK', 'NOK', 'DKK', 'JPY'];
 
@@ -164,6 +165,8 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
       </fieldset>
 
       {def.modes ? <ModesFieldset style={def.modes} examples={def.modeExamples} control={form.control} register={form.register} errorAt={errorAt} /> : null}
+
+      <PortsFieldset control={form.control} register={form.register} errorAt={errorAt} />
 
       {isPublic ? (
         <Field id="gear-change-note" label="What changed and why" hint="Shown with the date in the item’s “figures updated” note once an editor approves the change." errors={errorAt('changeNote')}>

@@ -5,6 +5,37 @@
 import { SPECS, type Category, type SpecKey } from '@/lib/measure';
 import { CATEGORY_DEFS, claimableSpecs, MODE_SPEC_KEYS } from './categories';
 import { formatForInput } from './format';
+import { formatPdProfiles } from './ports';
+
+/** One port row of the form, as typed text. `pdProfiles` is text such as "5 V 3 A · 9 V 3 A". */
+export type PortFormRow = {
+  kind: string;
+  direction: string;
+  volts: string;
+  amps: string;
+  watts: string;
+  pdProfiles: string;
+  minVolts: string;
+  maxVolts: string;
+  label: string;
+  efficiency: string;
+  source: string;
+};
+
+export function emptyPortRow(): PortFormRow {
+  return { kind: 'usb-c', direction: 'output', volts: '', amps: '', watts: '', pdProfiles: '', minVolts: '', maxVolts: '', label: '', efficiency: '', source: '' };
+}
+
+/** A port row as schema input: only the fields its kind and direction record (PD profiles on USB-C, a window on inputs). */
+function cleanPort(row: PortFormRow): Record<string, unknown> {
+  const out: Record<string, unknown> = { kind: row.kind, direction: row.direction, volts: row.volts, amps: row.amps, watts: row.watts };
+  if (row.kind === 'usb-c' && row.pdProfiles.trim() !== '') out.pdProfiles = row.pdProfiles;
+  if (row.direction !== 'output' && (row.minVolts.trim() !== '' || row.maxVolts.trim() !== '')) out.voltageWindow = { minVolts: row.minVolts, maxVolts: row.maxVolts };
+  if (row.label.trim() !== '') out.label = row.label;
+  if (row.efficiency.trim() !== '') out.efficiency = row.efficiency;
+  if (row.source) out.source = row.source;
+  return out;
+}
 
 /** Form values: everything as typed text; cleaned per category before validation (see `clean`). */
 export type GearFormValues = {
@@ -21,6 +52,7 @@ export type GearFormValues = {
   claimSource: string;
   specs: Record<string, { value: string; source: string }>;
   modes: { name: string; luminousFlux: string; runtime: string; powerDraw: string }[];
+  ports: PortFormRow[];
   changeNote: string;
 };
 
@@ -55,6 +87,7 @@ export function clean(values: GearFormValues, withCategory: boolean): Record<str
     claimSource: values.claimSource,
     specs,
     modes,
+    ports: (values.ports ?? []).map(cleanPort),
     changeNote: values.changeNote,
   };
   if (withCategory) out.category = values.category;
@@ -76,6 +109,7 @@ export function emptyGearValues(category: Category = 'light'): GearFormValues {
     claimSource: 'packaging',
     specs: {},
     modes: [],
+    ports: [],
     changeNote: '',
   };
 }
@@ -97,6 +131,25 @@ export function toFormValues(input: Record<string, unknown>, category: Category)
     runtime: typeof m.runtime === 'number' ? formatForInput(m.runtime, 'duration') : '',
     powerDraw: typeof m.powerDraw === 'number' ? formatForInput(m.powerDraw, 'power') : '',
   }));
+  const num = (v: unknown) => (typeof v === 'number' ? String(v) : '');
+  const portsIn = (input.ports ?? []) as Record<string, unknown>[];
+  const ports: PortFormRow[] = portsIn.map((p) => {
+    const window = p.voltageWindow as { minVolts: number; maxVolts: number } | undefined;
+    const profiles = p.pdProfiles as { volts: number; amps: number }[] | undefined;
+    return {
+      kind: text(p.kind),
+      direction: text(p.direction),
+      volts: num(p.volts),
+      amps: num(p.amps),
+      watts: num(p.watts),
+      pdProfiles: profiles?.length ? formatPdProfiles(profiles) : '',
+      minVolts: num(window?.minVolts),
+      maxVolts: num(window?.maxVolts),
+      label: text(p.label),
+      efficiency: num(p.efficiency),
+      source: p.source === input.claimSource ? '' : text(p.source),
+    };
+  });
   const price = input.price as { amount: string; currency: string } | null;
   return {
     ...base,
@@ -112,5 +165,6 @@ export function toFormValues(input: Record<string, unknown>, category: Category)
     claimSource: text(input.claimSource) || 'packaging',
     specs,
     modes,
+    ports,
   };
 }

@@ -58,6 +58,16 @@ export function parsePdProfiles(text: string): PdProfile[] {
   });
 }
 
+/** `parsePdProfiles` without throwing, for echoing as the user types. */
+export function tryParsePdProfiles(text: string): { ok: true; profiles: PdProfile[] } | { ok: false; message: string } {
+  try {
+    return { ok: true, profiles: parsePdProfiles(text) };
+  } catch (error) {
+    if (error instanceof PdProfileTextError) return { ok: false, message: error.message };
+    throw error;
+  }
+}
+
 /** "5 V, 2.4 A, 12 W" — the figures a port states (empty when none). */
 export function portFiguresText(port: Pick<Port, 'volts' | 'amps' | 'watts'>): string {
   const parts: string[] = [];

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { CategoryCautions } from '@/components/gear/category-cautions';
+import { PortsList } from '@/components/gear/ports-list';
 import { RatiosTable } from '@/components/gear/ratios-table';
 import { ReviewActions } from '@/components/gear/review-actions';
 import { SpecsTable } from '@/components/gear/specs-table';
@@ -127,6 +128,8 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
         </dl>
       </section>
 
+      <PortsList ports={version.ports} />
+
       <section aria-labelledby="ratios-heading" className="space-y-3">
         <h2 id="ratios-heading" className="text-xl font-bold">
           Value ratios
@@ -208,7 +211,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
                     {h.mode ? ` (${h.mode})` : ''}
                   </td>
                   <td className="py-1 pr-3 figure font-mono">
-                    {figure(h.key, h.oldValue)} → {figure(h.key, h.newValue)}
+                    {h.oldText !== null || h.newText !== null ? `${h.oldText ?? '—'} → ${h.newText ?? 'removed'}` : `${figure(h.key, h.oldValue)} → ${figure(h.key, h.newValue)}`}
                   </td>
                   <td className="py-1 text-slate">{CONTEXT[h.context]}</td>
                 </tr>
