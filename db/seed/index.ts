@@ -33,6 +33,7 @@ import type { Sample } from '../../lib/readings/types';
 import type { SeriesRow } from './series';
 import { DEMO_ACCOUNTS, DEMO_FIELD_TESTS, DEMO_GEAR, DEMO_KITS, DEMO_MEASURED_SPECS, DEMO_REVIEWS, type DemoUserKey } from './demo-data';
 import { seedDemoBuyLinks } from './buy-links';
+import { seedDemoPorts } from './ports';
 
 export { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, DEMO_PLACES, demoAccount, type DemoAccount } from './demo-data';
 
@@ -49,6 +50,7 @@ export interface SeedCounts {
   reviewRevisions: number;
   reviewStateEvents: number;
   reviewBuyLinks: number;
+  gearPorts: number;
   kits: number;
   kitEntries: number;
 }
@@ -127,6 +129,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
     reviewRevisions: 0,
     reviewStateEvents: 0,
     reviewBuyLinks: 0,
+    gearPorts: 0,
     kits: 0,
     kitEntries: 0,
   };
@@ -340,6 +343,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
     }
 
     inserted.reviewBuyLinks += seedDemoBuyLinks(tx);
+    inserted.gearPorts += seedDemoPorts(tx);
 
     // Kits.
     for (const kit of DEMO_KITS) {
