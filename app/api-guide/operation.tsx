@@ -10,14 +10,15 @@ const ACCESS_TEXT: Record<GuideOperation['access'], string> = {
 
 function statusKind(status: string): string {
   if (status.startsWith('2')) return 'success';
+  if (status.startsWith('3')) return 'nothing new, no body';
   if (status.startsWith('4')) return 'refused';
   return 'failed';
 }
 
 /** One route + method: what it does, who may call it, what it takes and what it answers. */
 export function OperationBlock({ operation: op }: { operation: GuideOperation }) {
-  const success = op.responses.filter((r) => r.status.startsWith('2'));
-  const refusals = op.responses.filter((r) => !r.status.startsWith('2'));
+  const answers = op.responses.filter((r) => !/^[45]/.test(r.status));
+  const refusals = op.responses.filter((r) => /^[45]/.test(r.status));
   return (
     <article id={op.id} aria-labelledby={`${op.id}-h`} className="scroll-mt-8 rounded-lg border border-rule p-3 sm:p-5">
       <h3 id={`${op.id}-h`} className="text-lg font-semibold">
@@ -69,7 +70,7 @@ export function OperationBlock({ operation: op }: { operation: GuideOperation })
 
       <h4 className="mt-4 text-sm font-semibold">Answers</h4>
       <ul className="mt-2 space-y-2 text-sm">
-        {success.map((r) => (
+        {answers.map((r) => (
           <li key={r.status}>
             <span className="figure mr-2 font-mono font-semibold" aria-label={`${r.status}, ${statusKind(r.status)}`}>
               {r.status}
