@@ -32,7 +32,7 @@ function PathChain({ path, number }: { path: KitPath; number: number }) {
       <p className="text-sm">
         <span className="font-semibold">Way {number}:</span> {fmtPercent(path.efficiency)} of the energy arrives
         {path.fromStorageEfficiency !== null && path.startsAt === 'source' ? ` (${fmtPercent(path.fromStorageEfficiency)} from the battery onward)` : ''}
-        {path.maxWatts !== null ? `; up to ${fmt(path.maxWatts, 1)} W` : ''}.
+        {path.maxWatts !== null ? `; it delivers up to ${fmt(path.maxWatts, 1)} W` : ''}.
       </p>
       <ol className="flex flex-wrap items-center gap-x-1 gap-y-2 text-sm" aria-label={`Way ${number}, step by step`}>
         {path.nodes.map((n, i) => (
@@ -47,11 +47,14 @@ function PathChain({ path, number }: { path: KitPath; number: number }) {
         ))}
       </ol>
       {path.cautions.length > 0 ? (
-        <ul className="list-disc pl-5 text-xs text-slate">
-          {path.cautions.map((c) => (
-            <li key={c}>Check: {c}.</li>
-          ))}
-        </ul>
+        <div className="text-xs text-slate">
+          <p className="font-semibold">Worth checking by hand:</p>
+          <ul className="list-disc pl-5">
+            {path.cautions.map((c) => (
+              <li key={c}>{c.charAt(0).toUpperCase() + c.slice(1)}.</li>
+            ))}
+          </ul>
+        </div>
       ) : null}
     </li>
   );
@@ -65,7 +68,7 @@ function DevicePaths({ device }: { device: KitDevicePaths }) {
       {device.paths.length > 0 ? (
         <>
           <p className="mt-1 text-sm font-semibold text-lichen-dark" data-testid="device-path-status">
-            ✓ Can run or charge from this kit ({device.paths.length === 1 ? 'one way' : `${device.paths.length} ways`}; the best first).
+            ✓ Can run or charge from this kit{device.paths.length === 1 ? '.' : ` in ${device.paths.length} ways (the most efficient first).`}
           </p>
           <ol className="mt-3 space-y-4">
             {device.paths.slice(0, SHOWN_PATHS).map((p, i) => (
@@ -100,6 +103,10 @@ function DevicePaths({ device }: { device: KitDevicePaths }) {
               <li key={r}>{r.charAt(0).toUpperCase() + r.slice(1)}.</li>
             ))}
           </ul>
+          <p className="mt-2 text-xs text-slate">
+            To fix it, add a cable or adapter that turns what the kit offers into what the device needs (for example a 12 V socket to USB-C charger
+            for a laptop), or a battery or bank with the right port.
+          </p>
         </>
       )}
     </li>
@@ -134,11 +141,11 @@ export function ChargingPathsPanel({ charging }: { charging: KitChargingPaths })
         ) : null}
         {charging.truncated ? <p className="mt-2 text-xs text-slate">The search stopped at its limits; some less efficient ways may be missing.</p> : null}
       </div>
-      <Caution title="A path is a plan, not a wiring diagram" level={3}>
+      <Caution title="A path is a plan, not a wiring diagram" level={3} deferNote={false}>
         <p>
           A path says the plugs and figures match, not that a connection is safe. Fit a fuse close to the battery&apos;s positive terminal, check
           polarity before you connect anything (DC barrel plugs differ), and use cable thick enough for the current over its whole length. The
-          makers&apos; instructions and local electrical codes come first.
+          makers&apos; instructions and local electrical codes come first; ask a licensed electrician for anything wired into a vehicle or building.
         </p>
       </Caution>
     </section>
