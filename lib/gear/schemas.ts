@@ -231,7 +231,8 @@ const portField = z
     if (p.kind === 'other' && !p.label) {
       issue({ code: 'custom', path: ['label'], message: 'Name the connector of an "other" port, e.g. "2-pin trailer plug".' });
     }
-    if (found) return;
+    // Nested fields already refused (a figure, a profile): validatePort would only repeat them without a field name.
+    if (found || ctx.issues.length > 0) return;
     try {
       validatePort(portOf(p));
     } catch (error) {
