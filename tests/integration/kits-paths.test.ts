@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
-import { kitEntries, type Role } from '@/db/schema';
+import { kitEntries, kits, type Role } from '@/db/schema';
 
 /*
  * Free-form entries with a role and ports (issue 9) through the kits API and the data layer: the
@@ -24,6 +24,7 @@ vi.mock('@/lib/auth/guard', async () => {
 
 const { seedDemo } = await import('@/db/seed');
 const { getOwnKit } = await import('@/db/kits');
+const { kitBudget } = await import('@/lib/kits');
 const list = await import('@/app/api/v1/kits/route');
 const one = await import('@/app/api/v1/kits/[id]/route');
 const duplicate = await import('@/app/api/v1/kits/[id]/duplicate/route');
@@ -121,5 +122,21 @@ describe('free-form roles and ports through /api/v1/kits', () => {
     const b = await body(r);
     expect(b.kit.entries[1]).toMatchObject({ freeName: 'Radio', freePorts: null });
     expect(b.budget.loads[0]).toMatchObject({ name: 'Radio', efficiencyFrom: 'kit' });
+  });
+});
+
+describe('demo kits', () => {
+  it('the base camp kit shows a device with a charging path and one with the reason it has none', () => {
+    const row = state.db.select().from(kits).where(eq(kits.id, 'demo-kit-base-camp')).get();
+    expect(row).toBeDefined();
+    const { kit, catalog } = getOwnKit(state.db, { id: row!.ownerId }, row!.id);
+    const { charging, loads, warnings } = kitBudget(kit, catalog);
+    const withPath = charging.devices.filter((d) => d.paths.length > 0);
+    const withReason = charging.devices.filter((d) => d.listsPorts && d.paths.length === 0 && d.reasons.length > 0);
+    expect(withPath.length).toBeGreaterThanOrEqual(1);
+    expect(withReason.length).toBeGreaterThanOrEqual(1);
+    // Loads on a path from storage take its efficiency; the one without a path keeps the kit's figure and is warned about.
+    expect(loads.some((l) => l.efficiencyFrom === 'path')).toBe(true);
+    expect(warnings.some((w) => w.code === 'no-path')).toBe(true);
   });
 });
