@@ -23,6 +23,8 @@ function connectorNotes(ports: readonly PortClaim[]): string[] {
   return notes;
 }
 
+const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
 const figure = (value: number | undefined, unit: string) => (value === undefined ? '—' : `${formatFigure(value)} ${unit}`);
 
 /** The item's ports as a table: direction, connector in words, V/A/W and the details a charging path needs. */
@@ -52,14 +54,14 @@ export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
             {ports.map((p, i) => (
               <tr key={i} className="border-t border-rule align-top" data-testid={`port-row-${i}`}>
                 <th scope="row" className="px-3 py-2">
-                  <span className="font-semibold">{portKindLabel(p)}</span>
+                  <span className="font-semibold">{capitalised(portKindLabel(p))}</span>
                   {p.label && p.kind !== 'other' ? <span className="block text-xs text-slate">{p.label}</span> : null}
                   <span className="block text-xs font-normal text-slate">{PORT_KIND_HINTS[p.kind]}</span>
                 </th>
                 <td className="px-3 py-2">{PORT_DIRECTION_LABELS[p.direction]}</td>
-                <td className="px-3 py-2 figure font-mono">{figure(p.volts, 'V')}</td>
-                <td className="px-3 py-2 figure font-mono">{figure(p.amps, 'A')}</td>
-                <td className="px-3 py-2 figure font-mono">{figure(p.watts, 'W')}</td>
+                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.volts, 'V')}</td>
+                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.amps, 'A')}</td>
+                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.watts, 'W')}</td>
                 <td className="px-3 py-2">
                   <ul className="space-y-1">
                     {p.pdProfiles?.length ? (
