@@ -103,6 +103,24 @@ function DevicePaths({ device }: { device: KitDevicePaths }) {
               <li key={r}>{r.charAt(0).toUpperCase() + r.slice(1)}.</li>
             ))}
           </ul>
+          {device.takes.length > 0 || device.offers.length > 0 ? (
+            <dl className="mt-2 grid gap-x-3 gap-y-1 text-sm sm:grid-cols-[max-content_1fr]" data-testid="device-path-compare">
+              <dt className="font-semibold">It takes</dt>
+              <dd>{device.takes.length ? device.takes.join('; ') : 'no input listed'}</dd>
+              <dt className="font-semibold">The kit offers</dt>
+              <dd>
+                {device.offers.length ? (
+                  <ul>
+                    {device.offers.map((o) => (
+                      <li key={o}>{o}</li>
+                    ))}
+                  </ul>
+                ) : (
+                  'nothing to draw from yet (no battery, bank or panel with an output)'
+                )}
+              </dd>
+            </dl>
+          ) : null}
           <p className="mt-2 text-xs text-slate">
             To fix it, add a cable or adapter that turns what the kit offers into what the device needs (for example a 12 V socket to USB-C charger
             for a laptop), or a battery or bank with the right port.

@@ -178,7 +178,7 @@ export function FreePowerFields({ index, form }: { index: number; form: Form }) 
     <div className="space-y-3 sm:col-span-4" data-testid="free-power">
       <Field id={`${id}.freeRole`} label="What is it, for charging paths?" hint="Choose a role and list its connectors to see how the kit can charge or run it.">
         <select id={`${id}.freeRole`} className="block w-full rounded-md border border-rule bg-paper px-3 py-2" value={current ?? ''} onChange={(e) => changeRole(e.target.value)}>
-          <option value="">Not part of charging paths</option>
+          <option value="">Not chosen (a device if it has a draw)</option>
           {FREE_ROLES.map((r) => (
             <option key={r} value={r}>
               {ROLE_LABELS[r]}

@@ -53,6 +53,10 @@ export interface KitDevicePaths {
   listsPorts: boolean;
   paths: KitPath[];
   reasons: string[];
+  /** With no path: what the device takes ("genderless DC connector, 11.7–15.2 V") … */
+  takes: string[];
+  /** … and what the kit's batteries, banks and panels offer ("Camp battery: 12 V socket, 12.8 V"), to choose a cable or adapter. */
+  offers: string[];
 }
 
 export interface KitChargingPaths {
@@ -114,6 +118,20 @@ export function kitPowerItems(entries: readonly KitEntryInput[], catalog: KitCat
     const item = e.kind === 'catalog' ? catalogPowerItem(e) : freeItem(e);
     return item ? [item] : [];
   });
+}
+
+/** "USB-C, PD 5 V 3 A / 9 V 2 A", "12 V socket, 12.8 V 10 A", "genderless DC connector, 11.7–15.2 V". */
+export function portSummary(port: Port): string {
+  const figures: string[] = [];
+  if (port.pdProfiles) figures.push(`USB PD ${port.pdProfiles.map((p) => `${formatFigure(p.volts)} V ${formatFigure(p.amps)} A`).join(' / ')}`);
+  else if (port.voltageWindow) figures.push(`${formatFigure(port.voltageWindow.minVolts)}–${formatFigure(port.voltageWindow.maxVolts)} V${port.amps !== undefined ? ` ${formatFigure(port.amps)} A` : ''}`);
+  else {
+    const v = nominalVolts(port);
+    const parts = [v !== undefined ? `${formatFigure(v)} V` : null, port.amps !== undefined ? `${formatFigure(port.amps)} A` : null].filter(Boolean);
+    if (parts.length) figures.push(parts.join(' '));
+  }
+  if (port.watts !== undefined) figures.push(`${formatFigure(port.watts)} W`);
+  return [portKindLabel(port), ...figures].join(', ');
 }
 
 /** The most power (W) a port or cable end states it delivers; undefined when it states no limit. */
@@ -190,6 +208,9 @@ export function kitChargingPaths(kit: { entries: readonly KitEntryInput[] }, cat
     if (!(error instanceof MeasureError)) throw error;
     return { devices: [], truncated: false, problem: error.message };
   }
+  const offers = items
+    .filter((i) => i.role === 'storage' || i.role === 'source')
+    .flatMap((i) => (i.ports ?? []).filter((p) => p.direction !== 'input').map((p) => `${i.name}: ${portSummary(p)}`));
   return {
     devices: result.devices.map((d) => ({
       index: Number(d.itemId.slice('entry-'.length)),
@@ -198,6 +219,8 @@ export function kitChargingPaths(kit: { entries: readonly KitEntryInput[] }, cat
       listsPorts: (byId.get(d.itemId)?.ports?.length ?? 0) > 0,
       paths: d.paths.map((p) => describePath(p, byId)),
       reasons: d.reasons,
+      takes: d.paths.length ? [] : (byId.get(d.itemId)?.ports ?? []).filter((p) => p.direction !== 'output').map(portSummary),
+      offers: d.paths.length ? [] : offers,
     })),
     truncated: result.truncated,
     problem: null,

@@ -156,7 +156,11 @@ describe('kit → findChargingPaths input', () => {
     expect(lap?.listsPorts).toBe(true);
     // The laptop asks for 20 V at 2.25 A; the bank's highest PD profile is 9 V at 2 A (18 W < 45 W).
     expect(lap?.reasons.join(' ')).toContain('Laptop needs 20 V at 2.25 A over USB-C; Testmaker C-Bank offers at most 9 V at 2 A');
+    // Beside the reason, what the laptop takes and what the kit's storage offers, side by side.
+    expect(lap?.takes).toEqual(['USB-C, USB PD 20 V 2.25 A']);
+    expect(lap?.offers).toEqual(['Testmaker C-Bank: USB-C, USB PD 5 V 3 A / 9 V 2 A', 'Testmaker Block: 12 V socket, 12.8 V 10 A']);
     const rad = without.devices.find((d) => d.name === 'Radio');
+    expect(rad?.takes).toEqual([]);
     // 12.8 V is within 12 V ± 10 % (10.8–13.2 V); 10 A ≥ 2 A. Straight from the battery: efficiency 1.
     expect(rad?.paths[0]?.efficiency).toBe(1);
     expect(rad?.paths[0]?.maxWatts).toBeCloseTo(12.8 * 10, 9);
