@@ -57,6 +57,8 @@ test('a guest sees a laptop with no charging path and why, adds a car charger an
   const radioPaths = paths.locator('[data-device="Radio"]');
   await expect(laptopPaths.getByTestId('device-path-status')).toContainText('No way to run or charge it');
   await expect(laptopPaths.getByTestId('device-path-reasons')).toContainText('Laptop needs 20 V at 2.25 A over USB-C; Bank offers at most 9 V at 2 A');
+  await expect(laptopPaths.getByTestId('device-path-compare')).toContainText('USB-C, USB PD 20 V 2.25 A');
+  await expect(laptopPaths.getByTestId('device-path-compare')).toContainText('Bank: USB-C, USB PD 5 V 3 A / 9 V 2 A');
   await expect(radioPaths.getByTestId('device-path-status')).toContainText('Can run or charge');
   await expect(radioPaths.getByTestId('charging-path').first()).toContainText('100 % of the energy arrives');
 
