@@ -128,12 +128,24 @@ export const kitEntrySchema = z
     chemistry: z.enum(CHEMISTRIES, { error: `Chemistry must be one of ${CHEMISTRIES.join(', ')}.` }).nullable().optional(),
     depthOfDischarge: optionalNumber(depth),
     /** Free-form entries: what the thing is in charging paths (null = a device when it has ports or a draw). */
-    freeRole: z.enum(FREE_ROLES, { error: `Role must be one of ${FREE_ROLES.join(', ')}.` }).nullable().optional(),
+    freeRole: z
+      .enum(FREE_ROLES, { error: `Role must be one of ${FREE_ROLES.join(', ')}.` })
+      .nullable()
+      .optional()
+      .meta({ description: 'Free-form entries: what it is in charging paths. Unset: a device when it has ports or a draw.' }),
     /**
      * Free-form entries: the ports. A cable or adapter has exactly two: first the end that plugs into an
      * output (direction "input"), then the end that feeds an input (direction "output").
      */
-    freePorts: z.array(portSchema).max(MAX_FREE_PORTS, `List at most ${MAX_FREE_PORTS} ports.`).nullable().optional(),
+    freePorts: z
+      .array(portSchema)
+      .max(MAX_FREE_PORTS, `List at most ${MAX_FREE_PORTS} ports.`)
+      .nullable()
+      .optional()
+      .meta({
+        description:
+          'Free-form entries: ports (figures in V, A, W). A cable or adapter has exactly two: first the end that plugs into an output (direction "input"), then the end that feeds an input (direction "output"); a cable’s ends state no voltage.',
+      }),
     /** Free-form adapter (or lossy cable): conversion efficiency, (0, 1]. */
     freeEfficiency: optionalNumber(finite('Efficiency').gt(0, 'Efficiency must be more than 0.').max(1, 'Efficiency is at most 1 (100 %).')),
   })
