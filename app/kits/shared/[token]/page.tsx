@@ -11,7 +11,7 @@ import { KitTotalsPanel } from '@/components/kits/kit-totals';
 import { getUnitSystem } from '@/lib/units/preference';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { AppError } from '@/lib/http/errors';
-import { CHEMISTRY_LABELS, entryName, kitBudget, kitTotals, resolveEntries, SKY_LABELS } from '@/lib/kits';
+import { CHEMISTRY_LABELS, cleanPort, entryName, kitBudget, kitTotals, portSummary, resolveEntries, SKY_LABELS } from '@/lib/kits';
 
 // Rendered per request (dynamic), so Next sends `Cache-Control: private, no-cache, no-store`.
 export const dynamic = 'force-dynamic';
@@ -64,6 +64,9 @@ export default async function SharedKitPage({ params }: { params: Promise<{ toke
                       e.kind === 'free' && e.entry.freeDrawW != null ? `${fmt(e.entry.freeDrawW, 2)} W` : null,
                       e.entry.chemistry ? CHEMISTRY_LABELS[e.entry.chemistry] : null,
                       e.entry.depthOfDischarge != null ? `depth of discharge ${fmtPercent(e.entry.depthOfDischarge)}` : null,
+                      e.kind === 'free' && e.entry.freeRole ? e.entry.freeRole : null,
+                      ...(e.kind === 'free' ? (e.entry.freePorts ?? []).map((p) => `${p.direction === 'both' ? 'in and out' : p.direction}: ${portSummary(cleanPort(p))}`) : []),
+                      e.kind === 'free' && e.entry.freeEfficiency != null ? `efficiency ${fmtPercent(e.entry.freeEfficiency)}` : null,
                     ]
                       .filter(Boolean)
                       .join(' · ')}
