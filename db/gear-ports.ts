@@ -57,31 +57,39 @@ export function livePortsOf(db: Q, itemId: string): Port[] {
   return claimedRows(db, itemId).map(rowToPort);
 }
 
+/** One `gear_ports` row of a claimed port (shared by edits and the demo seed). */
+export function claimedPortRow(
+  itemId: string,
+  p: Omit<PortClaim, 'source'>,
+  position: number,
+  row: { id: string; source: ClaimSource; at: Date },
+): typeof gearPorts.$inferInsert {
+  return {
+    id: row.id,
+    gearItemId: itemId,
+    position,
+    basis: 'claimed',
+    kind: p.kind,
+    direction: p.direction,
+    volts: p.volts ?? null,
+    amps: p.amps ?? null,
+    watts: p.watts ?? null,
+    pdProfiles: p.pdProfiles ?? null,
+    minVolts: p.voltageWindow?.minVolts ?? null,
+    maxVolts: p.voltageWindow?.maxVolts ?? null,
+    label: p.label ?? null,
+    efficiency: p.efficiency ?? null,
+    claimSource: row.source,
+    updatedAt: row.at,
+  };
+}
+
 /** Replaces an item's claimed ports (inside the caller's transaction). */
 export function writeLivePorts(tx: Tx, itemId: string, ports: readonly PortClaim[], at: Date): void {
   tx.delete(gearPorts).where(and(eq(gearPorts.gearItemId, itemId), eq(gearPorts.basis, 'claimed'))).run();
   if (ports.length === 0) return;
   tx.insert(gearPorts)
-    .values(
-      ports.map((p, position) => ({
-        id: randomUUID(),
-        gearItemId: itemId,
-        position,
-        basis: 'claimed' as const,
-        kind: p.kind,
-        direction: p.direction,
-        volts: p.volts ?? null,
-        amps: p.amps ?? null,
-        watts: p.watts ?? null,
-        pdProfiles: p.pdProfiles ?? null,
-        minVolts: p.voltageWindow?.minVolts ?? null,
-        maxVolts: p.voltageWindow?.maxVolts ?? null,
-        label: p.label ?? null,
-        efficiency: p.efficiency ?? null,
-        claimSource: p.source,
-        updatedAt: at,
-      })),
-    )
+    .values(ports.map((p, position) => claimedPortRow(itemId, p, position, { id: randomUUID(), source: p.source, at })))
     .run();
 }
 

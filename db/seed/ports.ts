@@ -16,6 +16,7 @@ import { and, eq, like } from 'drizzle-orm';
 import type { Db } from '../connection';
 import { gearItems, gearPorts, specChanges } from '../schema';
 import type { PortClaim } from '@/lib/gear/schemas';
+import { claimedPortRow } from '../gear-ports';
 import { DEMO_GEAR } from './demo-data';
 
 type DemoPort = Omit<PortClaim, 'source'> & { source?: PortClaim['source'] };
@@ -126,24 +127,7 @@ export function seedDemoPorts(tx: Q, now = new Date()): number {
     inserted += tx
       .insert(gearPorts)
       .values(
-        ports.map((p, position) => ({
-          id: `${item.id}-port-${position + 1}`,
-          gearItemId: item.id,
-          position,
-          basis: 'claimed' as const,
-          kind: p.kind,
-          direction: p.direction,
-          volts: p.volts ?? null,
-          amps: p.amps ?? null,
-          watts: p.watts ?? null,
-          pdProfiles: p.pdProfiles ?? null,
-          minVolts: p.voltageWindow?.minVolts ?? null,
-          maxVolts: p.voltageWindow?.maxVolts ?? null,
-          label: p.label ?? null,
-          efficiency: p.efficiency ?? null,
-          claimSource: p.source ?? item.claimSource,
-          updatedAt: now,
-        })),
+        ports.map((p, position) => claimedPortRow(item.id, p, position, { id: `${item.id}-port-${position + 1}`, source: p.source ?? item.claimSource, at: now })),
       )
       .onConflictDoNothing()
       .run().changes;
