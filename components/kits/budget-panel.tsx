@@ -160,7 +160,9 @@ function BudgetLines({ budget }: { budget: KitBudget }) {
                   <td className="pr-3 font-mono">{fmt(l.dailyWh, 2)}</td>
                   <td data-testid="load-efficiency">
                     <span className="font-mono">{fmtPercent(l.efficiency)}</span>{' '}
-                    <span className="text-xs text-slate">{l.efficiencyFrom === 'path' ? `its charging path: ${l.pathText}` : 'the kit’s conversion efficiency'}</span>
+                    <span className="block text-xs text-slate" title={l.pathText ?? undefined}>
+                      {l.efficiencyFrom === 'path' ? 'its best charging path from storage' : 'the kit’s figure'}
+                    </span>
                   </td>
                 </tr>
               ))}
