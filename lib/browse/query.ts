@@ -177,7 +177,10 @@ export const compareQuerySchema = z.strictObject({
         .max(COMPARE_MAX, `Name at most ${COMPARE_MAX} items.`)
         .refine((slugs) => new Set(slugs).size === slugs.length, 'Name each item once.'),
     )
-    .meta({ description: `${COMPARE_MIN}–${COMPARE_MAX} gear slugs separated by commas, in column order.` }),
+    .meta({
+      description: `${COMPARE_MIN}–${COMPARE_MAX} gear slugs separated by commas, in column order.`,
+      example: 'northcairn-cairnlight-900,glowmere-scree-600',
+    }),
   units: unitsParam,
 });
 
