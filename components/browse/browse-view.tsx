@@ -2,7 +2,7 @@
 
 import { useInfiniteQuery, type InfiniteData } from '@tanstack/react-query';
 import { debounce, parseAsString, useQueryStates } from 'nuqs';
-import { useId, useMemo, useState } from 'react';
+import { useEffect, useId, useMemo, useState } from 'react';
 import type { GearListResponse } from '@/lib/browse/contract';
 import { CATEGORY_DEFS, CATEGORY_LIST } from '@/lib/gear/categories';
 import { isCategory } from '@/lib/measure';
@@ -23,6 +23,16 @@ interface Props {
 const fixedParsers = Object.fromEntries(BROWSE_FIXED_KEYS.map((k) => [k, parseAsString])) as Record<(typeof BROWSE_FIXED_KEYS)[number], typeof parseAsString>;
 const TYPED = new Set(['q', 'min.mass', 'max.mass']);
 
+/** The value once it has stopped changing for `ms`: typing in a filter sends one request, not one per key. */
+function useSettled<T>(value: T, ms: number): T {
+  const [settled, setSettled] = useState(value);
+  useEffect(() => {
+    const timer = setTimeout(() => setSettled(value), ms);
+    return () => clearTimeout(timer);
+  }, [value, ms]);
+  return settled;
+}
+
 export function BrowseView({ initial, units }: Props) {
   const [fixed, setFixed] = useQueryStates(fixedParsers, { history: 'replace' });
   const sortKey = fixed.sort;
@@ -32,7 +42,7 @@ export function BrowseView({ initial, units }: Props) {
   );
   const [ranges, setRanges] = useQueryStates(rangeParsers, { history: 'replace' });
   const values: Record<string, string | null> = { ...fixed, ...ranges };
-  const apiQuery = browseApiQuery(values, units);
+  const apiQuery = useSettled(browseApiQuery(values, units), 250);
   const imperial = units === 'imperial';
   const category = fixed.category && isCategory(fixed.category) ? fixed.category : null;
   const options = sortOptions(category, fixed.currency);
