@@ -33,6 +33,24 @@ function axisTitle(axis: AxisOption, currency: string | null, units: UnitSystem)
 }
 
 /** `units`: the reader's site-wide display units (header toggle). */
+/** One axis picker: every spec and ratio of the category, with which direction is better. */
+function AxisSelect(props: { id: string; label: string; className: string; options: readonly AxisOption[]; value: string; onChange: (key: string) => void }) {
+  return (
+    <div>
+      <label htmlFor={props.id} className="mb-1 block font-semibold">
+        {props.label}
+      </label>
+      <select id={props.id} className={props.className} value={props.value} onChange={(e) => props.onChange(e.target.value)}>
+        {props.options.map((o) => (
+          <option key={o.key} value={o.key}>
+            {o.label} ({o.better === 'min' ? 'less is better' : 'more is better'})
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
 export function BestValue({ units }: { units: UnitSystem }) {
   const [state, setState] = useQueryStates(urlState, { history: 'replace' });
   const category: Category = isCategory(state.category) ? state.category : 'light';
@@ -116,30 +134,8 @@ export function BestValue({ units }: { units: UnitSystem }) {
             ))}
           </select>
         </div>
-        <div>
-          <label htmlFor={ids.x} className="mb-1 block font-semibold">
-            Across (x)
-          </label>
-          <select id={ids.x} className={field} value={xAxis.key} onChange={(e) => void setState({ x: e.target.value })}>
-            {options.map((o) => (
-              <option key={o.key} value={o.key}>
-                {o.label} ({o.better === 'min' ? 'less is better' : 'more is better'})
-              </option>
-            ))}
-          </select>
-        </div>
-        <div>
-          <label htmlFor={ids.y} className="mb-1 block font-semibold">
-            Up (y)
-          </label>
-          <select id={ids.y} className={field} value={yAxis.key} onChange={(e) => void setState({ y: e.target.value })}>
-            {options.map((o) => (
-              <option key={o.key} value={o.key}>
-                {o.label} ({o.better === 'min' ? 'less is better' : 'more is better'})
-              </option>
-            ))}
-          </select>
-        </div>
+        <AxisSelect id={ids.x} label="Across (x)" className={field} options={options} value={xAxis.key} onChange={(key) => void setState({ x: key })} />
+        <AxisSelect id={ids.y} label="Up (y)" className={field} options={options} value={yAxis.key} onChange={(key) => void setState({ y: key })} />
         {needsCurrency ? (
           <div>
             <label htmlFor={ids.currency} className="mb-1 block font-semibold">
