@@ -102,6 +102,14 @@ export const gearItems = sqliteTable(
     /** IEC 60529 IP code such as IPX4 or IP67. */
     waterRating: text('water_rating'),
     /**
+     * Other categories the item also serves as (JSON list of category ids, never its primary one): a
+     * lantern with a USB output that also serves as a power bank. Approved value once the item is public.
+     */
+    alsoServesAs: text('also_serves_as', { mode: 'json' })
+      .notNull()
+      .$type<string[]>()
+      .default(sql`'[]'`),
+    /**
      * State of the item's latest version. `approvedAt` set means an approved version is public: the
      * columns here and the `specs` rows are then the approved figures, and an author's later edits wait
      * in `gear_pending_changes` until approved (see db/gear.ts).
@@ -465,6 +473,17 @@ export interface GearPendingData {
   claims: { key: string; mode: string; value: number; source: string }[];
   /** Claimed ports (lib/measure `Port` plus its claim source); absent in changes saved before ports existed. */
   ports?: GearPortClaim[];
+  /** Other categories the item also serves as; absent in changes saved before roles existed. */
+  alsoServesAs?: string[];
+  /** Feature checklist answers (lib/gear/features.ts); absent in changes saved before features existed. */
+  features?: GearFeatureClaim[];
+}
+
+/** One feature checklist answer: the item has it (with an optional detail such as a hook's material) or has not. */
+export interface GearFeatureClaim {
+  name: string;
+  present: boolean;
+  detail?: string;
 }
 
 /** A claimed port as stored in a pending change and returned by the working copy. */
@@ -480,6 +499,26 @@ export interface GearPortClaim {
   efficiency?: number;
   source: string;
 }
+
+/**
+ * Feature checklist answers of a gear item (names from lib/gear/features.ts). A row says the item has
+ * (`present` 1) or has not (0) the feature; no row means "not stated". Follows the item's workflow like
+ * claimed ports: once the item is approved these rows are the approved answers and an edit waits in
+ * `gear_pending_changes.data.features`.
+ */
+export const gearFeatures = sqliteTable(
+  'gear_features',
+  {
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    present: integer('present', { mode: 'boolean' }).notNull(),
+    /** Short text for features that take one, e.g. a hanging hook's material. */
+    detail: text('detail'),
+  },
+  (t) => [primaryKey({ columns: [t.gearItemId, t.name] }), index('gear_features_name').on(t.name, t.present)],
+);
 
 /** Every change to a spec: who, when, old → new. `context`: a draft edit, an edit pending approval, or applied by approval. */
 export const specChanges = sqliteTable(
