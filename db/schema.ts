@@ -710,3 +710,61 @@ export const reviewBuyLinks = sqliteTable(
   },
   (t) => [index('review_buy_links_revision').on(t.revisionId, t.position)],
 );
+
+/** What a long-term note is about (issue 9): our own list; labels and hints in lib/long-term-notes/kinds.ts. */
+export const LONG_TERM_NOTE_KINDS = ['use', 'wear', 'failure', 'repair', 'retired'] as const;
+export type LongTermNoteKind = (typeof LONG_TERM_NOTE_KINDS)[number];
+
+/**
+ * Long-term notes (issue 9): a reviewer's dated note on an item they own or tested — months in service,
+ * what wore, failed or was repaired. The `record` workflow; approved (and the item public) means public.
+ * `body` is Markdown, rendered through lib/markdown (sanitized) when shown.
+ */
+export const longTermNotes = sqliteTable(
+  'long_term_notes',
+  {
+    id: text('id').primaryKey(),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => users.id),
+    /** Calendar date of what the note reports, YYYY-MM-DD (a day, no time zone). */
+    notedOn: text('noted_on').notNull(),
+    monthsInService: integer('months_in_service').notNull(),
+    kind: text('kind', { enum: LONG_TERM_NOTE_KINDS }).notNull(),
+    title: text('title').notNull(),
+    body: text('body').notNull(),
+    status: text('status', { enum: RECORD_STATES }).notNull().default('draft'),
+    approvedAt: integer('approved_at', { mode: 'timestamp_ms' }),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [
+    index('long_term_notes_item').on(t.gearItemId, t.status, t.notedOn),
+    index('long_term_notes_author').on(t.authorId),
+    index('long_term_notes_status').on(t.status),
+  ],
+);
+
+/** Review state changes of long-term notes, with the editor's comment when sent back. */
+export const longTermNoteStateEvents = sqliteTable(
+  'long_term_note_state_events',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    noteId: text('note_id')
+      .notNull()
+      .references(() => longTermNotes.id, { onDelete: 'cascade' }),
+    fromState: text('from_state', { enum: RECORD_STATES }),
+    toState: text('to_state', { enum: RECORD_STATES }).notNull(),
+    actorId: text('actor_id').references(() => users.id, { onDelete: 'set null' }),
+    comment: text('comment').notNull().default(''),
+    createdAt: createdAt(),
+  },
+  (t) => [index('long_term_note_state_events_note').on(t.noteId, t.createdAt)],
+);
+
+export type LongTermNote = typeof longTermNotes.$inferSelect;
