@@ -13,6 +13,8 @@ export const KIND_CATEGORIES: Record<FieldTestKind, readonly Category[] | null> 
   'solar-output': ['solar-panel'],
   'charge-time': ['power-bank', 'battery-12v', 'light'],
   'mass-check': null,
+  // Any item with an output port (a lantern's USB out, a car charger, a bank); the port itself is checked per trial.
+  'port-output': null,
   other: null,
 };
 

@@ -2,7 +2,7 @@ import type { SpecKey } from '@/lib/measure';
 import type { ValueField } from '@/lib/readings/types';
 
 /** Kinds of field test (stored in field_tests.kind). */
-export const FIELD_TEST_KINDS = ['light-runtime', 'light-output', 'energy-delivered', 'solar-output', 'charge-time', 'mass-check', 'other'] as const;
+export const FIELD_TEST_KINDS = ['light-runtime', 'light-output', 'energy-delivered', 'solar-output', 'charge-time', 'mass-check', 'port-output', 'other'] as const;
 export type FieldTestKind = (typeof FIELD_TEST_KINDS)[number];
 
 export function isFieldTestKind(x: unknown): x is FieldTestKind {
@@ -93,6 +93,16 @@ export const KINDS: Record<FieldTestKind, KindInfo> = {
     input: 'typed',
     seriesFields: [],
     specKeys: ['mass'],
+    needsSwitchOn: false,
+    weatherMatters: false,
+  },
+  'port-output': {
+    label: 'Port output',
+    description: 'Load one output port (by its number in the item’s ports list) and type in the volts and amps a USB or DC meter reads.',
+    input: 'typed',
+    seriesFields: [],
+    // Measured port figures go into gear_ports (basis 'measured'), not the specs table: lib/field-tests/port-output.ts.
+    specKeys: [],
     needsSwitchOn: false,
     weatherMatters: false,
   },
