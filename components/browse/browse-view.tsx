@@ -11,6 +11,8 @@ import { fetchJson } from './fetch-json';
 import { GearCard, GearCardSkeleton } from './gear-card';
 import { UnitsToggle } from '../units-toggle';
 import type { UnitSystem } from '@/lib/units/display';
+import { filterUnit } from '@/lib/units/filter';
+import { RangeFilter } from './range-filter';
 import { BROWSE_CURRENCIES, sortOptions } from './sort-options';
 
 interface Props {
@@ -93,7 +95,7 @@ export function BrowseView({ initial, units }: Props) {
     setFormKey((n) => n + 1); // typed inputs are uncontrolled: remount them empty
   };
 
-  const ids = { q: useId(), kind: useId(), sort: useId(), order: useId(), currency: useId(), minMass: useId(), maxMass: useId(), minSort: useId(), maxSort: useId() };
+  const ids = { q: useId(), kind: useId(), sort: useId(), order: useId(), currency: useId() };
   const field = 'w-full rounded-md border border-rule bg-paper px-2 py-1.5 text-sm';
   const kinds = category ? CATEGORY_DEFS[category].kinds : [];
   const moneyInUse = sort?.money || Boolean(values['min.price'] || values['max.price']);
@@ -159,19 +161,17 @@ export function BrowseView({ initial, units }: Props) {
           <input id={ids.q} type="search" className={field} defaultValue={fixed.q ?? ''} onChange={(e) => set('q', e.target.value)} maxLength={100} />
         </div>
 
-        <fieldset>
-          <legend className="mb-1 font-semibold">Mass (g)</legend>
-          <div className="grid grid-cols-2 gap-2">
-            <label htmlFor={ids.minMass} className="text-xs text-slate">
-              at least
-              <input id={ids.minMass} type="number" min={0} step="any" inputMode="decimal" className={field} defaultValue={fixed['min.mass'] ?? ''} onChange={(e) => set('min.mass', e.target.value)} />
-            </label>
-            <label htmlFor={ids.maxMass} className="text-xs text-slate">
-              at most
-              <input id={ids.maxMass} type="number" min={0} step="any" inputMode="decimal" className={field} defaultValue={fixed['max.mass'] ?? ''} onChange={(e) => set('max.mass', e.target.value)} />
-            </label>
-          </div>
-        </fieldset>
+        <RangeFilter
+          key={`mass-${units}-${category}`}
+          label="Mass"
+          typedUnit={filterUnit('g', units, category)}
+          canonicalUnit="g"
+          min={fixed['min.mass']}
+          max={fixed['max.mass']}
+          onChange={(bound, v) => set(`${bound}.mass`, v)}
+          className={field}
+          nonNegative
+        />
 
         <div className="grid gap-3">
           <div>
@@ -202,21 +202,16 @@ export function BrowseView({ initial, units }: Props) {
         {!category ? <p className="-mt-3 text-xs text-slate">Choose a category to sort by its output, capacity and value ratios.</p> : null}
 
         {sort && sort.key !== 'mass' ? (
-          <fieldset key={sort.key}>
-            <legend className="mb-1 font-semibold">
-              {sort.label} {sort.unit && sort.unit !== 'ratio' ? `(${sort.unit})` : ''}
-            </legend>
-            <div className="grid grid-cols-2 gap-2">
-              <label htmlFor={ids.minSort} className="text-xs text-slate">
-                at least
-                <input id={ids.minSort} type="number" step="any" inputMode="decimal" className={field} defaultValue={values[`min.${sort.key}`] ?? ''} onChange={(e) => set(`min.${sort.key}`, e.target.value)} />
-              </label>
-              <label htmlFor={ids.maxSort} className="text-xs text-slate">
-                at most
-                <input id={ids.maxSort} type="number" step="any" inputMode="decimal" className={field} defaultValue={values[`max.${sort.key}`] ?? ''} onChange={(e) => set(`max.${sort.key}`, e.target.value)} />
-              </label>
-            </div>
-          </fieldset>
+          <RangeFilter
+            key={`${sort.key}-${units}`}
+            label={sort.label}
+            typedUnit={filterUnit(sort.unit, units, category)}
+            canonicalUnit={sort.unit}
+            min={values[`min.${sort.key}`]}
+            max={values[`max.${sort.key}`]}
+            onChange={(bound, v) => set(`${bound}.${sort.key}`, v)}
+            className={field}
+          />
         ) : null}
 
         <div>

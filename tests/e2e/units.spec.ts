@@ -1,4 +1,5 @@
 import { expect, test } from '@playwright/test';
+import type { GearListResponse } from '@/lib/browse/contract';
 import { signInWithPassword, signUpNewReader } from './support';
 
 /*
@@ -54,4 +55,33 @@ test('a signed-in choice is saved on the profile and comes back in a new browser
   await again.goto(LANTERN);
   await expect(again.getByTestId('spec-mass-claimed')).toContainText('14.46 oz');
   await fresh.close();
+});
+
+test('an imperial reader filters lights by "at most 10 oz" and gets only items of at most 283.5 g', async ({ browser, request }) => {
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await page.goto('/gear?category=light');
+  await page.getByRole('group', { name: 'Units for figures' }).first().getByRole('button', { name: 'Imperial' }).click();
+  const mass = page.getByRole('group', { name: 'Mass (oz)' });
+  await expect(mass).toBeVisible();
+  await mass.getByLabel('at most').fill('10');
+  // 10 oz × 28.349 523 125 g/oz = 283.495 231 25 g (1 oz exact by the 1959 agreement; NIST SP 811 App. B.8 rounded).
+  await expect(page).toHaveURL(/max\.mass=283\.49523125(&|$)/);
+
+  const all = (await (await request.get('/api/v1/gear?category=light&limit=100')).json()) as GearListResponse;
+  const light = (await (await request.get('/api/v1/gear?category=light&max.mass=283.49523125&limit=100')).json()) as GearListResponse;
+  expect(light.items.length).toBeGreaterThan(0);
+  expect(light.items.length).toBeLessThan(all.items.length); // the filter narrows the demo lights
+  for (const item of light.items) expect(item.specs.mass!.value).toBeLessThanOrEqual(283.5);
+  await expect.poll(() => page.getByTestId('gear-card-name').allTextContents()).toEqual(light.items.map((i) => i.name));
+  // The cards show those masses in ounces, each at most 10 oz.
+  const shown = await page.getByTestId('gear-card').getByText(/ oz$/).allTextContents();
+  for (const text of shown) expect(Number(text.replace(/ oz$/, ''))).toBeLessThanOrEqual(10);
+
+  // A reload keeps the filter and shows it back in ounces.
+  await page.reload();
+  await expect(page.getByRole('group', { name: 'Mass (oz)' }).getByLabel('at most')).toHaveValue('10');
+  await page.getByRole('group', { name: 'Units for figures' }).first().getByRole('button', { name: 'Metric' }).click();
+  await expect(page.getByRole('group', { name: 'Mass (g)' }).getByLabel('at most')).toHaveValue('283.49523125');
+  await context.close();
 });
