@@ -62,6 +62,9 @@ const spec = (
   };
 };
 
+/** Measured-only noise rise per S-meter range, from radio-noise field tests of anything powered that may switch. */
+const RADIO_NOISE_SPECS = [spec('noiseRiseBelow30', { example: '' }), spec('noiseRiseAbove30', { example: '' })];
+
 const STORAGE_RATIOS = ['wh-per-kg', 'wh-per-money', 'money-per-wh', 'delivered-wh-per-money', 'delivered-vs-rated'] as const;
 
 export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
@@ -82,6 +85,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
       spec('beamDistance', { example: '100 m' }),
       spec('ratedEnergy', { label: 'Battery energy', example: '5200 mAh at 3.7 V' }),
       spec('chargeTime', { example: '4 h' }),
+      ...RADIO_NOISE_SPECS,
     ],
     modes: 'light',
     modeExamples: ['low', 'medium', 'high'],
@@ -106,6 +110,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
       spec('rechargePower', { label: 'Recharge input power', example: '30 W' }),
       spec('chargeTime', { label: 'Time to recharge', example: '3 h 30 min' }),
       spec('cycleRating', { label: 'Cycle rating (to 80 % capacity)', example: '500 cycles' }),
+      ...RADIO_NOISE_SPECS,
     ],
     modes: null,
     modeExamples: [],
@@ -127,6 +132,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
       spec('continuousPower', { label: 'Continuous output power', example: '1280 W' }),
       spec('continuousCurrent', { label: 'Continuous discharge current', example: '100 A' }),
       spec('cycleRating', { label: 'Cycle rating (to 80 % capacity)', example: '4000 cycles' }),
+      ...RADIO_NOISE_SPECS,
     ],
     modes: null,
     modeExamples: [],
@@ -150,6 +156,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
       spec('foldedLength', { example: '53 cm' }),
       spec('foldedWidth', { example: '36 cm' }),
       spec('foldedDepth', { example: '4 cm' }),
+      ...RADIO_NOISE_SPECS,
     ],
     modes: null,
     modeExamples: [],
@@ -194,6 +201,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
       spec('ratedCurrent', { example: '10 A' }),
       spec('cableLength', { example: '1.5 m' }),
       spec('conversionEfficiency', { label: 'Conversion efficiency (converters)', example: '90 %' }),
+      ...RADIO_NOISE_SPECS,
     ],
     modes: null,
     modeExamples: [],
@@ -207,7 +215,7 @@ export const CATEGORY_DEFS: Record<Category, CategoryDef> = {
     label: 'Other',
     plural: 'Other gear',
     kinds: [],
-    specs: [spec('mass', { example: '300 g' }), spec('ratedEnergy', { example: '20 Wh' })],
+    specs: [spec('mass', { example: '300 g' }), spec('ratedEnergy', { example: '20 Wh' }), ...RADIO_NOISE_SPECS],
     modes: 'device',
     modeExamples: ['running'],
     ratios: [],

@@ -33,7 +33,7 @@ export class QuantityParseError extends Error {
 /** Quantities a reviewer may type into a spec field. */
 export type TypedQuantity = Extract<
   Quantity,
-  'mass' | 'energy' | 'power' | 'luminousFlux' | 'luminousIntensity' | 'illuminance' | 'length' | 'duration' | 'voltage' | 'current' | 'count' | 'fraction'
+  'mass' | 'energy' | 'power' | 'luminousFlux' | 'luminousIntensity' | 'illuminance' | 'length' | 'duration' | 'voltage' | 'current' | 'count' | 'fraction' | 'level'
 >;
 
 /** Typed aliases (lower-case) → unit symbol of lib/measure. */
@@ -46,6 +46,7 @@ const ALIASES: Record<string, UnitSymbol> = {
   s: 's', sec: 's', min: 'min', h: 'h', hr: 'h', hrs: 'h', d: 'd', day: 'd', days: 'd',
   v: 'V', a: 'A', ma: 'mA', mah: 'mAh', ah: 'Ah',
   cycles: 'cycles', cycle: 'cycles', '%': '%', percent: '%',
+  db: 'dB',
 };
 
 /** Units a reviewer may type per quantity (as shown in hints), canonical first. */
@@ -62,6 +63,7 @@ export const TYPED_UNITS: Record<TypedQuantity, readonly string[]> = {
   current: ['A', 'mA'],
   count: ['cycles'],
   fraction: ['%'],
+  level: ['dB'],
 };
 
 /** Upper bound for any typed figure in its canonical unit: far above any real gear, far below overflow. */
@@ -217,6 +219,7 @@ const QUANTITY_WORDS: Record<TypedQuantity, string> = {
   current: 'current',
   count: 'count',
   fraction: 'share',
+  level: 'level (dB)',
 };
 
 export function describe(quantity: TypedQuantity): string {

@@ -61,6 +61,9 @@ export const SPECS = {
   foldedWidth: { unit: 'm', quantity: 'length', higherIsBetter: false, measuredOnly: false, label: 'Folded width' },
   foldedDepth: { unit: 'm', quantity: 'length', higherIsBetter: false, measuredOnly: false, label: 'Folded depth' },
   conversionEfficiency: { unit: '%', quantity: 'fraction', higherIsBetter: true, measuredOnly: false, label: 'Conversion efficiency' },
+  // Worst noise-floor rise over an item's approved radio-noise checks, per S-meter range (see radio-noise.ts).
+  noiseRiseBelow30: { unit: 'dB', quantity: 'level', higherIsBetter: false, measuredOnly: true, label: 'Radio noise rise, below 30 MHz (worst band)' },
+  noiseRiseAbove30: { unit: 'dB', quantity: 'level', higherIsBetter: false, measuredOnly: true, label: 'Radio noise rise, above 30 MHz (worst band)' },
 } as const satisfies Record<string, SpecInfo>;
 
 /** A spec key (see `SPECS` for units). */

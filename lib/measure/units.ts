@@ -17,7 +17,9 @@ export type Quantity =
   /** A count such as a battery's rated charge cycles. */
   | 'count'
   /** A share in per cent, such as a converter's efficiency. */
-  | 'fraction';
+  | 'fraction'
+  /** A level difference in decibels, such as a receiver's noise-floor rise. */
+  | 'level';
 
 /**
  * A linear unit: value in the canonical unit = value × num ÷ den.
@@ -80,6 +82,8 @@ const LINEAR = {
   // dimensionless
   cycles: { quantity: 'count', num: 1, den: 1 },
   '%': { quantity: 'fraction', num: 1, den: 1 },
+  // level difference (a ratio on a log scale); only dB itself, so no conversion arises
+  dB: { quantity: 'level', num: 1, den: 1 },
 } as const satisfies Record<string, LinearUnit>;
 
 const TEMPERATURE_UNITS = ['degC', 'degF', 'K'] as const;
@@ -104,6 +108,7 @@ export const UNITS_BY_QUANTITY: Readonly<Record<Quantity, readonly UnitSymbol[]>
   charge: ['Ah', 'mAh'],
   count: ['cycles'],
   fraction: ['%'],
+  level: ['dB'],
 };
 
 /** The canonical (stored) unit of each quantity. */
@@ -122,6 +127,7 @@ export const CANONICAL_UNIT: Readonly<Record<Quantity, UnitSymbol>> = {
   charge: 'Ah',
   count: 'cycles',
   fraction: '%',
+  level: 'dB',
 };
 
 /** Every unit symbol, in the order of `UNITS_BY_QUANTITY`. */

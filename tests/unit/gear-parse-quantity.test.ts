@@ -110,6 +110,13 @@ describe('parseQuantity: counts, shares and sizes (issue 4 non-power specs)', ()
     expect(code('12 %', 'mass')).toBe('wrong-quantity');
   });
 
+  it('reads a level difference in dB (radio noise rise), refusing other units', () => {
+    // dB is the only unit of the `level` quantity (lib/measure units.ts), so the value is kept as typed.
+    expect(value('4.5 dB', 'level')).toBe(4.5);
+    expect(value('12 db', 'level')).toBe(12);
+    expect(code('3 W', 'level')).toBe('wrong-quantity');
+  });
+
   it('reads folded sizes and cable lengths into metres', () => {
     // 1 in = 0.0254 m exactly (international yard and pound agreement, 1959; check-values §3).
     expect(value('21 in', 'length')).toBeCloseTo(0.5334, 12);

@@ -100,11 +100,11 @@ describe('convert: errors', () => {
  * Cross-check with an independent general-purpose unit library (mathjs, a test-only dev
  * dependency) over every pair of units it shares with lib/measure. mathjs has no lumen,
  * lux or foot-candle, so lm, lx and fc are not cross-checked; it spells the day `day`. Counts (cycles)
- * and per cent are dimensionless and have no conversion to check.
+ * and per cent are dimensionless and have no conversion to check; dB (a level) has a single unit.
  */
 const MATHJS_NAME: Partial<Record<UnitSymbol, string>> = {};
 for (const u of UNIT_SYMBOLS) {
-  if (u === 'lm' || u === 'lx' || u === 'fc' || u === 'cycles' || u === '%') continue;
+  if (u === 'lm' || u === 'lx' || u === 'fc' || u === 'cycles' || u === '%' || u === 'dB') continue;
   MATHJS_NAME[u] = u === 'd' ? 'day' : u;
 }
 
