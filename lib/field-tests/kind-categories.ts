@@ -15,6 +15,8 @@ export const KIND_CATEGORIES: Record<FieldTestKind, readonly Category[] | null> 
   'mass-check': null,
   // Any item with an output port (a lantern's USB out, a car charger, a bank); the port itself is checked per trial.
   'port-output': null,
+  // Anything powered that may switch (chargers, converters, controllers, LED drivers); not the receiver itself.
+  'radio-noise': ['power-bank', 'battery-12v', 'solar-panel', 'cable-adapter', 'light', 'other'],
   other: null,
 };
 

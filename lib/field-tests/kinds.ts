@@ -2,7 +2,7 @@ import type { SpecKey } from '@/lib/measure';
 import type { ValueField } from '@/lib/readings/types';
 
 /** Kinds of field test (stored in field_tests.kind). */
-export const FIELD_TEST_KINDS = ['light-runtime', 'light-output', 'energy-delivered', 'solar-output', 'charge-time', 'mass-check', 'port-output', 'other'] as const;
+export const FIELD_TEST_KINDS = ['light-runtime', 'light-output', 'energy-delivered', 'solar-output', 'charge-time', 'mass-check', 'port-output', 'radio-noise', 'other'] as const;
 export type FieldTestKind = (typeof FIELD_TEST_KINDS)[number];
 
 export function isFieldTestKind(x: unknown): x is FieldTestKind {
@@ -102,6 +102,16 @@ export const KINDS: Record<FieldTestKind, KindInfo> = {
     input: 'typed',
     seriesFields: [],
     // Measured port figures go into gear_ports (basis 'measured'), not the specs table: lib/field-tests/port-output.ts.
+    specKeys: [],
+    needsSwitchOn: false,
+    weatherMatters: false,
+  },
+  'radio-noise': {
+    label: 'Radio-noise check',
+    description: 'Read a receiver’s noise floor per band on a quiet reference supply, then with the item powering it or running nearby (S-units or dBm).',
+    // Band readings live in radio_noise_readings (db/radio-noise.ts), not in trials; the noise-rise specs are written there on approval.
+    input: 'typed',
+    seriesFields: [],
     specKeys: [],
     needsSwitchOn: false,
     weatherMatters: false,
