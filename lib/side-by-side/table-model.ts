@@ -2,7 +2,8 @@
  * What the side-by-side shows, computed from a `/api/v1/compare` response: rows grouped, each cell
  * as display text in the row's display unit (durations in hours; masses, lengths and temperatures
  * in imperial units when asked), rows whose cells are all equal left out when asked. The table and
- * the CSV export both read this model, so the file holds exactly what is on screen.
+ * the CSV export both read this model, so the file holds the figures on screen — as plain machine
+ * numbers (10400, dot decimal, no grouping) with the unit in the row's Unit column.
  */
 import Papa from 'papaparse';
 import type { CompareCell, CompareGroup, CompareResponse, CompareRow, FigureBasis, RowDirection } from '@/lib/browse/contract';
@@ -12,8 +13,12 @@ import { convert } from '@/lib/measure';
 export type UnitSystem = 'metric' | 'imperial';
 
 export interface ShownCell {
-  /** Display number or text ("348.7", "clear"); "" when the item lacks the figure. */
+  /** Display number or text ("348.7", "10,400", "clear"); "" when the item lacks the figure. */
   text: string;
+  /** The same figure for a CSV: a plain number in the row's display unit ("10400"), text as is. */
+  plain: string;
+  /** The cell's own unit when the row has none (per-money ratios in several currencies), else "". */
+  ownUnit: string;
   basis: FigureBasis | null;
   provenance: string | null;
   best: boolean;
@@ -61,12 +66,21 @@ function displayUnit(row: CompareRow, units: UnitSystem): { unit: string; toDisp
   return { unit: row.unit, toDisplay: (v) => v };
 }
 
-function cellText(cell: CompareCell, rowUnit: string, toDisplay: (v: number) => number): string {
-  if (cell.value === null) return '';
-  if (typeof cell.value === 'string') return cell.value;
+/** A display number without grouping: formatNumber's rounding, en-US digits (dot decimal), commas dropped. */
+export function plainNumber(value: number): string {
+  return formatNumber(value).replace(/,/g, '');
+}
+
+function shownCell(cell: CompareCell, rowUnit: string, toDisplay: (v: number) => number): ShownCell {
+  const base = { basis: cell.basis, provenance: cell.provenance, best: cell.best };
+  if (cell.value === null) return { ...base, text: '', plain: '', ownUnit: '' };
+  if (typeof cell.value === 'string') return { ...base, text: cell.value, plain: cell.value, ownUnit: '' };
   // A row without one unit (per-money ratios in several currencies) carries each cell's own unit.
-  if (rowUnit === '' && cell.unit !== '') return `${formatNumber(cell.value)} ${cell.unit}`;
-  return formatNumber(toDisplay(cell.value));
+  if (rowUnit === '' && cell.unit !== '') {
+    return { ...base, text: `${formatNumber(cell.value)} ${cell.unit}`, plain: plainNumber(cell.value), ownUnit: cell.unit };
+  }
+  const shown = toDisplay(cell.value);
+  return { ...base, text: formatNumber(shown), plain: plainNumber(shown), ownUnit: '' };
 }
 
 export function sideBySideView(response: CompareResponse, options: { units: UnitSystem; hideEqual: boolean }): SideBySideView {
@@ -86,7 +100,7 @@ export function sideBySideView(response: CompareResponse, options: { units: Unit
         label: row.label,
         unit,
         direction: row.direction,
-        cells: row.cells.map((cell) => ({ text: cellText(cell, row.unit, toDisplay), basis: cell.basis, provenance: cell.provenance, best: cell.best })),
+        cells: row.cells.map((cell) => shownCell(cell, row.unit, toDisplay)),
       });
     }
     if (rows.length > 0) groups.push({ id: group.id, label: group.label, rows });
@@ -98,10 +112,17 @@ export function sideBySideView(response: CompareResponse, options: { units: Unit
   };
 }
 
+/** The Unit column of a row: its display unit, or each item's own unit in column order ("lm/USD; lm/EUR"). */
+function csvUnit(row: ShownRow): string {
+  if (row.unit !== '' || !row.cells.some((c) => c.ownUnit !== '')) return row.unit;
+  return row.cells.map((c) => c.ownUnit || '—').join('; ');
+}
+
 /**
  * The CSV rows of a view: a header (group, figure, unit, one column per item), then one line per
- * shown row with the same text as the table. The best cell is not marked in the figures themselves
- * (so they stay numbers); a last column names the best items.
+ * shown row with the table's figures as plain numbers (no grouping, dot decimal, no unit in the cell:
+ * the unit is in the Unit column). The best cell is not marked in the figures themselves (so they stay
+ * numbers); a last column names the best items.
  */
 export function sideBySideCsvRows(view: SideBySideView): string[][] {
   const header = ['Group', 'Figure', 'Unit', ...view.columns.map((c) => `${c.maker} ${c.name}`), 'Best'];
@@ -109,8 +130,8 @@ export function sideBySideCsvRows(view: SideBySideView): string[][] {
     group.rows.map((row) => [
       group.label,
       row.label,
-      row.unit,
-      ...row.cells.map((c) => c.text),
+      csvUnit(row),
+      ...row.cells.map((c) => c.plain),
       row.cells
         .map((c, i) => (c.best ? `${view.columns[i]!.maker} ${view.columns[i]!.name}` : null))
         .filter((n): n is string => n !== null)

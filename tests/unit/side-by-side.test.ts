@@ -4,7 +4,7 @@ import type { CompareResponse, Figure, GearSummary } from '@/lib/browse/contract
 import { axisOptions, axisUnit, axisValue, defaultAxes, findAxis } from '@/lib/side-by-side/axes';
 import { bestValuePlot } from '@/lib/side-by-side/frontier';
 import { addToSelection, MAX_SIDE_BY_SIDE, moveInSelection, parseSelection, removeFromSelection, serializeSelection, sideBySidePath } from '@/lib/side-by-side/selection';
-import { sideBySideCsv, sideBySideCsvRows, sideBySideView } from '@/lib/side-by-side/table-model';
+import { plainNumber, sideBySideCsv, sideBySideCsvRows, sideBySideView } from '@/lib/side-by-side/table-model';
 
 describe('side-by-side selection', () => {
   it('reads distinct valid slugs, keeps the first six', () => {
@@ -114,8 +114,11 @@ describe('side-by-side view and CSV', () => {
         },
       ],
     };
-    const row = sideBySideView(mixed, { units: 'metric', hideEqual: false }).groups[0]!.rows[0]!;
+    const view = sideBySideView(mixed, { units: 'metric', hideEqual: false });
+    const row = view.groups[0]!.rows[0]!;
     expect(row.cells.map((c) => c.text)).toEqual(['6.67 lm/USD', '12.24 lm/EUR']);
+    // In the CSV the cells stay numbers and the Unit column names each item's unit in column order.
+    expect(sideBySideCsvRows(view)[1]).toEqual(['Value ratios', 'Light output per unit of money', 'lm/USD; lm/EUR', '6.67', '12.24', '']);
   });
 
   it('imperial: grams to ounces, °C to °F', () => {
@@ -135,8 +138,11 @@ describe('side-by-side view and CSV', () => {
     const rows = sideBySideCsvRows(view);
     expect(rows[0]).toEqual(['Group', 'Figure', 'Unit', 'Glowmere Ridge Lantern', 'Northcairn Fold, "Lite"', 'Best']);
     expect(rows[1]).toEqual(['Specs', 'Mass', 'g', '410', '185', 'Northcairn Fold, "Lite"']);
-    expect(rows[2]).toEqual(['Specs', 'Light output', 'lm', '10,400', '', 'Glowmere Ridge Lantern']);
+    // Plain machine numbers: no grouping, so 10,400 on screen is 10400 in the file (RFC 4180 needs no quotes).
+    expect(rows[2]).toEqual(['Specs', 'Light output', 'lm', '10400', '', 'Glowmere Ridge Lantern']);
+    expect(view.groups[0]!.rows[1]!.cells[0]!.text).toBe('10,400'); // the table keeps its grouping
     const csv = sideBySideCsv(view);
+    expect(csv.split('\r\n')[2]).toBe('Specs,Light output,lm,10400,,Glowmere Ridge Lantern');
     // RFC 4180 §2.6–2.7: fields with commas or quotes are quoted, inner quotes doubled.
     expect(csv.split('\r\n')[0]).toBe('Group,Figure,Unit,Glowmere Ridge Lantern,"Northcairn Fold, ""Lite""",Best');
     const back = Papa.parse<string[]>(csv, { skipEmptyLines: true }).data;
@@ -186,5 +192,16 @@ describe('best-value axes and frontier', () => {
     expect(plot.front.map((p) => p.slug)).toEqual(['e', 'a', 'b']);
     expect(plot.points.filter((p) => p.onFront).map((p) => p.slug).sort()).toEqual(['a', 'b', 'e']);
     expect(plot.missing.map((m) => m.slug)).toEqual(['f']);
+  });
+});
+
+describe('plain CSV numbers', () => {
+  it('drop grouping, keep the display rounding and a dot decimal', () => {
+    expect(plainNumber(10400)).toBe('10400');
+    expect(plainNumber(1234567.8)).toBe('1234568'); // ≥ 1000: no decimals (lib/gear/format)
+    expect(plainNumber(348.66)).toBe('348.7');
+    expect(plainNumber(0.8534)).toBe('0.853');
+    expect(plainNumber(-2500.4)).toBe('-2500');
+    expect(Number(plainNumber(14.4624))).toBe(14.46); // 410 g in oz (1 oz = 28.349 523 125 g), as on screen
   });
 });
