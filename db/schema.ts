@@ -768,3 +768,43 @@ export const longTermNoteStateEvents = sqliteTable(
 );
 
 export type LongTermNote = typeof longTermNotes.$inferSelect;
+
+/**
+ * Radio-noise check readings (issue 9): per band, a receiver's noise floor on a quiet reference supply
+ * (baseline) and with the item under test, each as entered (S-units + dB over S9, or dBm) and in dBm
+ * (IARU Region 1 Rec. R.1 via lib/measure `sMeterToDbm`). The S-meter range follows from the frequency
+ * (≤ 30 MHz below, else above: lib/field-tests/radio-noise.ts `rangeOfFrequency`). Written only by db/radio-noise.ts.
+ */
+export const radioNoiseReadings = sqliteTable(
+  'radio_noise_readings',
+  {
+    id: text('id').primaryKey(),
+    fieldTestId: text('field_test_id')
+      .notNull()
+      .references(() => fieldTests.id, { onDelete: 'cascade' }),
+    gearItemId: text('gear_item_id')
+      .notNull()
+      .references(() => gearItems.id, { onDelete: 'cascade' }),
+    position: integer('position').notNull(),
+    /** Band label as the reviewer names it: "40 m", "2 m". */
+    band: text('band').notNull(),
+    frequencyMhz: real('frequency_mhz').notNull(),
+    range: text('range', { enum: ['below-30mhz', 'above-30mhz'] }).notNull(),
+    /** lib/field-tests/radio-noise.ts RADIO_MODES. */
+    mode: text('mode', { enum: ['ssb', 'cw', 'am', 'fm', 'data'] }).notNull(),
+    bandwidthHz: real('bandwidth_hz').notNull(),
+    antenna: text('antenna').notNull().default(''),
+    distanceM: real('distance_m').notNull(),
+    baselineScale: text('baseline_scale', { enum: ['s-meter', 'dbm'] }).notNull(),
+    baselineSUnits: real('baseline_s_units'),
+    baselineDbOverS9: real('baseline_db_over_s9'),
+    baselineDbm: real('baseline_dbm').notNull(),
+    withItemScale: text('with_item_scale', { enum: ['s-meter', 'dbm'] }).notNull(),
+    withItemSUnits: real('with_item_s_units'),
+    withItemDbOverS9: real('with_item_db_over_s9'),
+    withItemDbm: real('with_item_dbm').notNull(),
+  },
+  (t) => [index('radio_noise_readings_test').on(t.fieldTestId, t.position), index('radio_noise_readings_item').on(t.gearItemId)],
+);
+
+export type RadioNoiseReading = typeof radioNoiseReadings.$inferSelect;
