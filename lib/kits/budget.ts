@@ -344,7 +344,7 @@ function applyPaths(loads: LoadLine[], charging: KitChargingPaths, kitEfficiency
       warned.add(line.index);
       warnings.push({
         code: 'no-path',
-        message: `${line.name}: nothing in the kit can run or charge it${device.reasons[0] ? ` (${device.reasons[0]})` : ''}. Its use still counts at the kit's ${formatFigure(kitEfficiency * 100)} % efficiency.`,
+        message: `${line.name}: nothing in the kit can run or charge it${device.reasons.length ? ` (${device.reasons.join('; ')})` : ''}. Its use still counts at the kit's ${formatFigure(kitEfficiency * 100)} % efficiency.`,
       });
     }
   }

@@ -1,7 +1,6 @@
 import { assertRange, finiteResult, MeasureError } from './errors';
 import {
   fitValidatedPorts,
-  PORT_KIND_LABELS,
   portKindLabel,
   SOLAR_LEAD_KINDS,
   validatePort,
@@ -211,7 +210,8 @@ const isOutput = (p: Port) => p.direction !== 'input';
 const isInput = (p: Port) => p.direction !== 'output';
 
 function portDescription(port: Port, side: 'input' | 'output'): string {
-  return `${portKindLabel(port)} ${side}`;
+  // "solar input", not "solar input input".
+  return port.kind === 'solar-input' || port.kind === 'mains-input' ? portKindLabel(port) : `${portKindLabel(port)} ${side}`;
 }
 
 function inputStep(target: Item, port: Port, index: number): PathStep {
@@ -276,14 +276,6 @@ function stepsKey(steps: readonly PathStep[]): string {
   return steps.map((s) => `${s.kind}${KEY_SEPARATOR}${s.itemId}${KEY_SEPARATOR}${s.portIndex ?? ''}`).join(KEY_SEPARATOR.repeat(2));
 }
 
-/** "a 12 V socket", "USB-A" — for "no cable joins … to …" sentences. */
-function withArticle(kind: PortKind, label?: string): string {
-  if (kind === 'other') return label ?? 'another connector';
-  if (kind === 'usb-a' || kind === 'usb-c') return PORT_KIND_LABELS[kind];
-  if (kind === 'binding-posts') return 'binding posts';
-  return `a ${PORT_KIND_LABELS[kind]}`;
-}
-
 function joinOr(parts: string[]): string {
   if (parts.length <= 1) return parts.join('');
   return `${parts.slice(0, -1).join(', ')} or ${parts[parts.length - 1]}`;
@@ -326,8 +318,16 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
   // Devices before storages, so the short paths are found before the search goes deeper.
   for (const list of inputsByKind.values()) list.sort((a, b) => Number(a.item.role === 'storage') - Number(b.item.role === 'storage'));
   const found = new Map<string, ChargingPath[]>(devices.map((d) => [d.id, []]));
-  /** Per device, why offers whose connector did join still did not fit. */
-  const electricalReasons = new Map<string, Set<string>>(devices.map((d) => [d.id, new Set()]));
+  /**
+   * Per device, why offers whose connector did join still did not fit: one sentence per problem,
+   * item drawn from (and its output port) and device input, so the same misfit reached through
+   * another cable is not repeated.
+   */
+  const electricalReasons = new Map<string, Map<string, string>>(devices.map((d) => [d.id, new Map()]));
+  /** Per device, the batteries, banks and panels whose power reached one of its inputs with a connector that joins. */
+  const reachedFrom = new Map<string, Set<string>>(devices.map((d) => [d.id, new Set()]));
+  /** Panels whose power reaches a battery or bank input that it fits (they count through that storage). */
+  const feedsStorage = new Set<string>();
   let budget = 0;
   let truncated = false;
 
@@ -412,14 +412,18 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       if (visited.has(target.id)) continue;
       const f = fit(offer, port);
       if (target.role === 'device') {
+        if (f.problem !== 'connector') for (const s of steps) if (s.kind === 'output') (reachedFrom.get(target.id) as Set<string>).add(s.itemId);
         if (!f.fits) {
-          const reasons = electricalReasons.get(target.id) as Set<string>;
-          if (f.problem !== 'connector' && reasons.size < MAX_REASONS) for (const r of f.reasons) reasons.add(name(r, offer.name, target.name));
+          const reasons = electricalReasons.get(target.id) as Map<string, string>;
+          const drawnFrom = steps.findLast((s) => s.kind === 'output');
+          const key = `${f.problem}${KEY_SEPARATOR}${drawnFrom?.itemId}${KEY_SEPARATOR}${drawnFrom?.portIndex}${KEY_SEPARATOR}${index}`;
+          if (f.problem !== 'connector' && !reasons.has(key) && reasons.size < MAX_REASONS) reasons.set(key, f.reasons.map((r) => name(r, offer.name, target.name)).join('; '));
         } else if (wanted(target.id, efficiency * (port.efficiency ?? 1))) {
           emit(target.id, [...steps, inputStep(target, port, index)], [...cautions, ...f.cautions.map((c) => name(c, offer.name, target.name))]);
         }
         continue;
       }
+      if (f.fits && steps[0]?.role === 'source') feedsStorage.add(steps[0].itemId);
       if (!f.fits || storages >= PATH_SEARCH_LIMITS.storagesInAPath) continue;
       const nextVisited = new Set(visited).add(target.id);
       target.ports.forEach((outPort, outIndex) => {
@@ -518,10 +522,6 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
     });
   }
 
-  const startKinds = new Map<string, string>();
-  for (const s of starts) {
-    for (const p of s.ports) if (isOutput(p)) startKinds.set(`${p.kind}:${p.label ?? ''}`, withArticle(p.kind, p.label));
-  }
 
   const result: DeviceChargingPaths[] = devices.map((device) => {
     const all = found.get(device.id) as ChargingPath[];
@@ -545,26 +545,46 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       itemName: device.name,
       quantity: device.quantity,
       paths: kept,
-      reasons: kept.length ? [] : reasonsForNoPath(device, starts, startKinds, electricalReasons.get(device.id) ?? new Set()),
+      reasons: kept.length
+        ? []
+        : reasonsForNoPath(device, starts, {
+            electrical: [...(electricalReasons.get(device.id) as Map<string, string>).values()],
+            reachedFrom: reachedFrom.get(device.id) as Set<string>,
+            feedsStorage,
+          }),
     };
   });
 
   return { devices: result, truncated };
 }
 
-const MAX_REASONS = 6;
+/** Reasons kept per device (our own limit: enough for every distinct problem of a real kit). */
+const MAX_REASONS = 8;
 
-function reasonsForNoPath(device: Item, starts: Item[], startKinds: Map<string, string>, electricalReasons: Set<string>): string[] {
+/**
+ * Every distinct reason a device has no path: each misfit of voltage, current or USB PD profile
+ * where a connector did join, then each battery, bank or panel whose outputs no cable or adapter
+ * in the kit joins to the device's inputs (a panel that charges a battery or bank is left to it).
+ */
+function reasonsForNoPath(
+  device: Item,
+  starts: Item[],
+  found: { electrical: string[]; reachedFrom: ReadonlySet<string>; feedsStorage: ReadonlySet<string> },
+): string[] {
   const inputs = device.ports.filter(isInput);
   if (inputs.length === 0) return [`${device.name} lists no power input; add its charging or supply port`];
   if (starts.length === 0) return ['the kit has no battery, bank or panel to draw from'];
-  if (startKinds.size === 0) return ['no battery, bank or panel in the kit lists an output port'];
-  const electrical = [...electricalReasons];
-  if (electrical.length) return electrical.slice(0, MAX_REASONS);
-  const theirs = joinOr([...new Set(inputs.map((p) => portKindLabel(p)))]);
-  const ours = joinOr([...startKinds.values()]);
+  const withOutputs = starts.filter((s) => s.ports.some(isOutput));
+  if (withOutputs.length === 0) return ['no battery, bank or panel in the kit lists an output port'];
   if (inputs.every((p) => p.kind === 'mains-input')) {
     return [`${device.name} charges only from mains; the kit has no mains outlet`];
   }
-  return [`no cable or adapter in the kit joins ${ours} to ${device.name}'s ${theirs}`];
+  const theirs = joinOr([...new Set(inputs.map((p) => portKindLabel(p)))]);
+  const unjoined = withOutputs
+    .filter((s) => !found.reachedFrom.has(s.id) && !(s.role === 'source' && found.feedsStorage.has(s.id)))
+    .map((s) => {
+      const ours = joinOr([...new Set(s.ports.filter(isOutput).map((p) => portKindLabel(p)))]);
+      return `no cable or adapter in the kit joins ${s.name}'s ${ours} to ${device.name}'s ${theirs}`;
+    });
+  return [...found.electrical, ...unjoined].slice(0, MAX_REASONS);
 }

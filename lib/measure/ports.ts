@@ -330,6 +330,9 @@ export function fitValidatedPorts(out: Port, inp: Port, names: { output?: string
       cautions,
     };
   }
+  // A solar input's amps and watts are the most its charge controller takes, not a need: a smaller
+  // panel charges more slowly, it still charges.
+  if (inp.kind === 'solar-input') return { fits: true, problem: null, reasons: [], cautions };
   const needAt = (o: Offer) => inp.amps ?? (inp.watts !== undefined ? inp.watts / o.volts : undefined);
   if (needAt(usable[0] as Offer) === undefined) {
     cautions.push(`${inName} does not state the current or power it draws; check ${outName} can supply it`);

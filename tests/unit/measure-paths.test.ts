@@ -107,7 +107,7 @@ describe('findChargingPaths: hand-worked kits', () => {
     const battery12: KitPowerItem = { ...battery, ports: [battery.ports![1]!] };
     const without = paths([battery12, radio], 'radio');
     expect(without.paths).toEqual([]);
-    expect(without.reasons).toEqual(["no cable or adapter in the kit joins a 12 V socket to Radio's genderless DC connector"]);
+    expect(without.reasons).toEqual(["no cable or adapter in the kit joins Battery's 12 V socket to Radio's genderless DC connector"]);
 
     const withLead = paths([battery12, radio, radioLead], 'radio');
     expect(withLead.reasons).toEqual([]);

@@ -178,6 +178,8 @@ describe('portFits', () => {
     expect(fit.fits).toBe(true);
     expect(fit.cautions.some((c) => /plug/.test(c))).toBe(true);
     expect(portFits({ ...panel, volts: 36 }, solarIn).problem).toBe('voltage');
+    // The input's 10 A / 120 W is the most its controller takes, not a need: a 3.33 A panel still charges (slower).
+    expect(portFits({ ...panel, amps: 3.33, watts: 60 }, { ...solarIn, amps: 10, watts: 120 }).fits).toBe(true);
     expect(portFits({ kind: 'usb-c', direction: 'output' }, solarIn).problem).toBe('connector');
   });
 
