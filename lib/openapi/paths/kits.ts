@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { CATEGORIES } from '@/lib/measure';
+import { CATEGORIES, KIT_POWER_ROLES } from '@/lib/measure';
 import { kitInputSchema, kitPatchSchema, MAX_ENTRIES } from '@/lib/kits/schemas';
 import { errorResponses, OPTIONALLY_SIGNED_IN, SIGNED_IN, type OpenAPIRegistry } from '../registry';
 
@@ -28,6 +28,44 @@ const kitRecordSchema = z
   })
   .meta({ id: 'KitRecord' });
 
+const pathNodeSchema = z.object({
+  itemName: z.string(),
+  role: z.enum(KIT_POWER_ROLES).meta({ description: '`source` a panel, `storage` a battery or bank, `device`, `cable`, `adapter`.' }),
+  detail: z.string().meta({ description: 'The ports used, in words: “12 V socket output”, “12 V socket → USB-C”.' }),
+  efficiency: z.number().meta({ description: 'Share of the energy this step passes on (product of its stated efficiencies; 1 when it states no loss).' }),
+});
+
+const kitPathSchema = z
+  .object({
+    nodes: z.array(pathNodeSchema).meta({ description: 'The steps of the path in order, from the panel, battery or bank to the device.' }),
+    efficiency: z.number().meta({ description: 'Product of every step’s efficiency: the share of the energy that arrives.' }),
+    fromStorageEfficiency: z.number().nullable().meta({ description: 'From the last battery or bank to the device (what the budget uses); null for panel → device.' }),
+    startsAt: z.enum(['source', 'storage']),
+    maxWatts: z.number().nullable().meta({ description: 'The least power any stated port or cable rating along the path delivers, W; null when none is stated.' }),
+    cautions: z.array(z.string()).meta({ description: 'Things to check by hand (plug sizes and polarity, unstated currents, cable ratings).' }),
+  })
+  .meta({ id: 'KitChargingPath' });
+
+/** lib/kits/paths.ts KitChargingPaths. */
+export const kitChargingSchema = z
+  .object({
+    devices: z.array(
+      z.object({
+        index: z.number().int().meta({ description: 'Index of the device’s entry in `kit.entries`.' }),
+        name: z.string(),
+        quantity: z.number().int(),
+        listsPorts: z.boolean().meta({ description: 'False when the device lists no ports (nothing to check yet).' }),
+        paths: z.array(kitPathSchema).meta({ description: 'Every path found, the most efficient first.' }),
+        reasons: z.array(z.string()).meta({ description: 'With no path: each distinct reason, in plain words.' }),
+        takes: z.array(z.string()).meta({ description: 'With no path: the inputs the device takes, in words.' }),
+        offers: z.array(z.string()).meta({ description: 'With no path: the outputs of the kit’s batteries, banks and panels, in words.' }),
+      }),
+    ),
+    truncated: z.boolean().meta({ description: 'True when the search reached its limits (some less efficient paths may be missing).' }),
+    problem: z.string().nullable().meta({ description: 'Why no paths could be looked for at all (e.g. too many powered entries), else null.' }),
+  })
+  .meta({ id: 'KitChargingPaths', description: 'How each powered device of the kit can be run or charged from its panels, batteries and banks, or why it cannot.' });
+
 /** app/api/v1/kits/view.ts `kitResponse`. */
 export const kitResponseSchema = z
   .object({
@@ -52,8 +90,9 @@ export const kitResponseSchema = z
         loads: z.array(z.unknown()),
         storage: z.array(z.unknown()),
         panels: z.array(z.unknown()),
+        charging: kitChargingSchema,
       })
-      .meta({ description: 'The power budget of the kit (lib/kits/budget.ts).' }),
+      .meta({ description: 'The power budget of the kit (lib/kits/budget.ts) and the charging paths of its devices (`charging`).' }),
   })
   .meta({ id: 'Kit' });
 
