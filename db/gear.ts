@@ -43,6 +43,9 @@ import { claimRows, gearInputSchema, gearPatchSchema, portClaims, type ClaimRow,
 import { CLAIM_SOURCE_LABELS } from '@/lib/gear/categories';
 import { describePort } from '@/lib/gear/ports';
 import { livePorts, writeLivePorts } from './gear-ports';
+import { alsoServesAsOf, liveFeatures, writeLiveAlsoServes, writeLiveFeatures } from './gear-roles';
+import { cleanAlsoServes } from '@/lib/gear/roles';
+import { FEATURE_DEFS, featuresAsInput, featureText, isFeatureName, type FeatureClaim } from '@/lib/gear/features';
 
 export interface Actor {
   id: string;
@@ -99,10 +102,18 @@ export function findEditableGear(db: Q, slug: string, actor: Actor): GearItem {
 /* Working copy                                                                                     */
 /* ------------------------------------------------------------------------------------------------ */
 
-export interface WorkingCopy extends Omit<GearPendingData, 'claims' | 'ports'> {
+export interface WorkingCopy extends Omit<GearPendingData, 'claims' | 'ports' | 'alsoServesAs' | 'features'> {
   category: Category;
   claims: ClaimRow[];
   ports: PortClaim[];
+  /** Other categories the item also serves as (lib/gear/roles.ts). */
+  alsoServesAs: Category[];
+  /** Feature checklist answers (lib/gear/features.ts). */
+  features: FeatureClaim[];
+}
+
+function typedFeatures(features: NonNullable<GearPendingData['features']>): FeatureClaim[] {
+  return features.filter((f) => isFeatureName(f.name)) as FeatureClaim[];
 }
 
 function typedClaims(claims: GearPendingData['claims']): ClaimRow[] {
@@ -145,6 +156,8 @@ function liveCopy(db: Q, item: GearItem): WorkingCopy {
     changeNote: '',
     claims: liveClaims(db, item.id),
     ports: livePorts(db, item.id),
+    alsoServesAs: alsoServesAsOf(item),
+    features: liveFeatures(db, item.id),
   };
 }
 
@@ -158,7 +171,10 @@ export function workingCopy(db: Q, item: GearItem): WorkingCopy {
   if (!pending) return liveCopy(db, item);
   // A change saved before ports existed leaves the ports as they are.
   const ports = pending.ports ? (pending.ports as PortClaim[]) : livePorts(db, item.id);
-  return { ...pending, claims: typedClaims(pending.claims), ports, category: item.category as Category };
+  // Likewise roles and features saved before they existed.
+  const alsoServesAs = pending.alsoServesAs ? cleanAlsoServes(item.category, pending.alsoServesAs) : alsoServesAsOf(item);
+  const features = pending.features ? typedFeatures(pending.features) : liveFeatures(db, item.id);
+  return { ...pending, claims: typedClaims(pending.claims), ports, alsoServesAs, features, category: item.category as Category };
 }
 
 function dataToPending(data: GearData): Omit<WorkingCopy, 'category'> {
@@ -176,6 +192,8 @@ function dataToPending(data: GearData): Omit<WorkingCopy, 'category'> {
     changeNote: data.changeNote,
     claims: claimRows(data),
     ports: portClaims(data),
+    alsoServesAs: data.alsoServesAs,
+    features: data.features,
   };
 }
 
@@ -208,6 +226,8 @@ export function workingCopyAsInput(copy: WorkingCopy): Record<string, unknown> {
     specs: specsIn,
     modes: [...modes.values()],
     ports: copy.ports.map((p) => ({ ...p })),
+    alsoServesAs: [...copy.alsoServesAs],
+    features: featuresAsInput(copy.features),
     changeNote: '',
   };
 }
@@ -290,6 +310,23 @@ function logPortChanges(tx: Tx, itemId: string, actorId: string, context: 'edit'
   tx.insert(specChanges)
     .values(diffs.map((d) => ({ gearItemId: itemId, basis: 'claimed' as const, context, changedById: actorId, createdAt: at, mode: '', ...d })))
     .run();
+}
+
+/** Role and feature changes in words ("Also serves as": none → power bank; "Feature: Red light mode": not stated → has). */
+function diffRolesAndFeatures(before: Pick<WorkingCopy, 'alsoServesAs' | 'features'>, after: Pick<WorkingCopy, 'alsoServesAs' | 'features'>): PortDiff[] {
+  const out: PortDiff[] = [];
+  const roleText = (list: readonly Category[]) => (list.length ? list.map((c) => CATEGORY_DEFS[c].label).join(', ') : null);
+  if (roleText(before.alsoServesAs) !== roleText(after.alsoServesAs)) {
+    out.push({ key: 'Also serves as', oldText: roleText(before.alsoServesAs), newText: roleText(after.alsoServesAs) });
+  }
+  const old = new Map(before.features.map((f) => [f.name, f]));
+  const next = new Map(after.features.map((f) => [f.name, f]));
+  for (const name of new Set([...old.keys(), ...next.keys()])) {
+    const o = featureText(old.get(name));
+    const n = featureText(next.get(name));
+    if (o !== n) out.push({ key: `Feature: ${FEATURE_DEFS[name].label}`, oldText: o, newText: n });
+  }
+  return out;
 }
 
 function writeLiveClaims(tx: Tx, itemId: string, claims: readonly ClaimRow[], at: Date) {
@@ -427,6 +464,9 @@ export function createGear(db: Db, actor: Actor, raw: unknown, now = new Date())
       const ports = portClaims(data);
       writeLivePorts(tx, id, ports, now);
       logPortChanges(tx, id, actor.id, 'edit', diffPorts([], ports), now);
+      writeLiveAlsoServes(tx, id, data.alsoServesAs);
+      writeLiveFeatures(tx, id, data.features);
+      logPortChanges(tx, id, actor.id, 'edit', diffRolesAndFeatures({ alsoServesAs: [], features: [] }, data), now);
       event(tx, id, null, 'draft', actor.id, now);
       return { id, slug };
     },
@@ -465,6 +505,9 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
         logSpecChanges(tx, item.id, actor.id, 'edit', diffClaims(before.claims, next.claims), now);
         writeLivePorts(tx, item.id, next.ports, now);
         logPortChanges(tx, item.id, actor.id, 'edit', diffPorts(before.ports, next.ports), now);
+        writeLiveAlsoServes(tx, item.id, next.alsoServesAs);
+        writeLiveFeatures(tx, item.id, next.features);
+        logPortChanges(tx, item.id, actor.id, 'edit', diffRolesAndFeatures(before, next), now);
         return { slug: item.slug, pending: false };
       }
 
@@ -474,6 +517,7 @@ export function updateGear(db: Db, actor: Actor, slug: string, rawPatch: unknown
         .run();
       logSpecChanges(tx, item.id, actor.id, 'pending', diffClaims(before.claims, next.claims), now);
       logPortChanges(tx, item.id, actor.id, 'pending', diffPorts(before.ports, next.ports), now);
+      logPortChanges(tx, item.id, actor.id, 'pending', diffRolesAndFeatures(before, next), now);
       if (item.status === 'approved') {
         tx.update(gearItems).set({ status: 'draft', updatedAt: now }).where(eq(gearItems.id, item.id)).run();
         event(tx, item.id, 'approved', 'draft', actor.id, now, 'Edited after approval; the approved figures stay public until this change is approved.');
@@ -583,6 +627,12 @@ export function approveGear(db: Db, actor: Actor, slug: string, now = new Date()
         const portDiffs = pending.ports ? diffPorts(before.ports, pending.ports as PortClaim[]) : [];
         if (pending.ports) writeLivePorts(tx, item.id, pending.ports as PortClaim[], at);
         logPortChanges(tx, item.id, actor.id, 'approval', portDiffs, at);
+        const after = workingCopy(tx, item);
+        const roleDiffs = diffRolesAndFeatures(before, after);
+        if (pending.alsoServesAs) writeLiveAlsoServes(tx, item.id, after.alsoServesAs);
+        if (pending.features) writeLiveFeatures(tx, item.id, after.features);
+        logPortChanges(tx, item.id, actor.id, 'approval', roleDiffs, at);
+        portDiffs.push(...roleDiffs);
         const summary = figureSummary(diffs, priceOf(before), priceOf(pending), portDiffs);
         if (summary) tx.insert(gearFigureNotes).values({ gearItemId: item.id, note: pending.changeNote, summary, approvedById: actor.id, createdAt: at }).run();
         tx.delete(gearPendingChanges).where(eq(gearPendingChanges.gearItemId, item.id)).run();

@@ -29,6 +29,8 @@ import {
 import { CATEGORY_DEFS, CLAIM_SOURCES, claimableSpecs, MODE_SPEC_KEYS, type ClaimSource } from './categories';
 import { MAX_CANONICAL, parseQuantity, QuantityParseError, type TypedQuantity } from './parse-quantity';
 import { MAX_PORTS, parsePdProfiles, PdProfileTextError } from './ports';
+import { checkFeatures, featuresField, type FeatureClaim } from './features';
+import { alsoServesAsField, checkRoles, roleSpecs, rolesOf } from './roles';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 
@@ -298,6 +300,10 @@ const editableShape = {
   modes: z.array(modeField).max(12, 'Record at most 12 modes.').optional().default([]),
   /** Claimed ports (inputs and outputs); each without a source takes `claimSource`. */
   ports: portsField.optional().default([]),
+  /** Other categories the item also serves as (never its primary one); their specs and checklists apply too. */
+  alsoServesAs: alsoServesAsField.optional().default([]),
+  /** Feature checklist answers (lib/gear/features.ts): `{ "<name>": true | false | null | { present, detail } }`. */
+  features: featuresField.optional().default([]),
   /** Why the figures change (shown in the dated "figures updated" note once approved). */
   changeNote: z.string().trim().max(500, 'Use at most 500 characters.').optional().default(''),
 };
@@ -309,6 +315,8 @@ interface Checked {
   waterRating: string | null;
   specs: Partial<Record<SpecKey, { value: number | null; source?: ClaimSource } | undefined>>;
   modes: { name: string; luminousFlux: number | null; runtime: number | null; powerDraw: number | null }[];
+  alsoServesAs: Category[];
+  features: FeatureClaim[];
 }
 
 /** Rules that depend on the category: kinds, required and allowed specs, modes, chemistry. */
@@ -322,26 +330,34 @@ function checkCategory(input: Checked, ctx: z.RefinementCtx): void {
       message: def.kinds.length ? `Choose one of: ${def.kinds.map((k) => k.label).join(', ')}.` : `A ${def.label.toLowerCase()} has no kinds.`,
     });
   }
-  const allowed = new Set(claimableSpecs(input.category).map((s) => s.key));
+  // A refused roles or features field reaches here untransformed (zod runs object refinements anyway): check only lists.
+  const alsoServesAs = Array.isArray(input.alsoServesAs) ? input.alsoServesAs.filter((c) => typeof c === 'string' && c in CATEGORY_DEFS) : [];
+  checkRoles(input.category, alsoServesAs, ctx);
+  // Specs, chemistry and water rating follow every role the item serves as (a lantern serving as a bank records its rated energy).
+  const roles = rolesOf(input.category, alsoServesAs);
+  const roleDefs = roles.map((r) => CATEGORY_DEFS[r]);
+  const what = roles.length > 1 ? `${def.label.toLowerCase()} serving as ${roles.slice(1).map((r) => CATEGORY_DEFS[r].label.toLowerCase()).join(' and ')}` : def.label.toLowerCase();
+  const allowed = new Set(roles.flatMap((r) => claimableSpecs(r)).map((s) => s.key));
   for (const [key, entry] of Object.entries(input.specs)) {
     if (entry && entry.value !== null && !allowed.has(key as SpecKey)) {
-      ctx.addIssue({ code: 'custom', path: ['specs', key, 'value'], message: `A ${def.label.toLowerCase()} has no ${SPECS[key as SpecKey].label.toLowerCase()} spec.` });
+      ctx.addIssue({ code: 'custom', path: ['specs', key, 'value'], message: `A ${what} has no ${SPECS[key as SpecKey].label.toLowerCase()} spec.` });
     }
   }
-  for (const s of def.specs) {
-    if (s.required && (input.specs[s.key]?.value ?? null) === null) {
-      ctx.addIssue({ code: 'custom', path: ['specs', s.key, 'value'], message: `The claimed ${s.label.toLowerCase()} is required for a ${def.label.toLowerCase()}.` });
+  for (const s of roleSpecs(roles)) {
+    if (roleDefs.some((d) => d.specs.some((x) => x.key === s.key && x.required)) && (input.specs[s.key]?.value ?? null) === null) {
+      ctx.addIssue({ code: 'custom', path: ['specs', s.key, 'value'], message: `The claimed ${s.label.toLowerCase()} is required for a ${what}.` });
     }
   }
-  if (def.chemistry.required && input.chemistry === null) {
-    ctx.addIssue({ code: 'custom', path: ['chemistry'], message: `Choose the cell chemistry of this ${def.label.toLowerCase()}.` });
+  if (roleDefs.some((d) => d.chemistry.required) && input.chemistry === null) {
+    ctx.addIssue({ code: 'custom', path: ['chemistry'], message: `Choose the cell chemistry of this ${what}.` });
   }
-  if (!def.chemistry.shown && input.chemistry !== null) {
-    ctx.addIssue({ code: 'custom', path: ['chemistry'], message: `A ${def.label.toLowerCase()} records no chemistry.` });
+  if (!roleDefs.some((d) => d.chemistry.shown) && input.chemistry !== null) {
+    ctx.addIssue({ code: 'custom', path: ['chemistry'], message: `A ${what} records no chemistry.` });
   }
-  if (!def.waterRating && input.waterRating !== null) {
-    ctx.addIssue({ code: 'custom', path: ['waterRating'], message: `A ${def.label.toLowerCase()} records no water rating.` });
+  if (!roleDefs.some((d) => d.waterRating) && input.waterRating !== null) {
+    ctx.addIssue({ code: 'custom', path: ['waterRating'], message: `A ${what} records no water rating.` });
   }
+  if (Array.isArray(input.features)) checkFeatures(roles, input.features, ctx);
   const names = new Set<string>();
   input.modes.forEach((mode, i) => {
     if (def.modes === null) {
@@ -409,6 +425,8 @@ export function claimRows(data: Pick<GearData, 'specs' | 'modes' | 'claimSource'
   }
   return rows;
 }
+
+export type { FeatureClaim };
 
 /** A claimed port: a lib/measure `Port` with where the claim came from. */
 export type PortClaim = Port & { source: ClaimSource };

@@ -1,0 +1,217 @@
+/**
+ * Multi-role gear and feature checklists (issue 9): stored through the gear service, schema, API and
+ * actions like ports; a draft's answers change live, an approved item's wait with its pending change
+ * and show in the spec history; bad feature names or roles → 4xx naming the field, nothing stored;
+ * the public API and browse show approved answers and roles only.
+ */
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { getTableName } from 'drizzle-orm';
+import { createTestDb } from '@/db/test-db';
+import type { Db } from '@/db/connection';
+import { gearFeatures, gearItems, gearPendingChanges, specChanges, specs, type Role } from '@/db/schema';
+import { createUser } from '@/db/users';
+import { AppError } from '@/lib/http/errors';
+
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
+vi.mock('@/db', () => ({ getDb: () => state.db }));
+vi.mock('next/navigation', () => ({
+  redirect: (to: string) => {
+    throw Object.assign(new Error('redirect'), { redirectTo: to });
+  },
+}));
+vi.mock('@/lib/auth/guard', async () => {
+  const { AppError: E } = await import('@/lib/http/errors');
+  const { hasRole } = await import('@/lib/auth/roles');
+  const requireUser = async () => {
+    if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
+    return state.user;
+  };
+  return {
+    getCurrentUser: async () => state.user,
+    requireUser,
+    requireRole: async (role: Role) => {
+      const user = await requireUser();
+      if (!hasRole(user, role)) throw new E('forbidden', `This needs the ${role} role.`);
+      return user;
+    },
+  };
+});
+
+const { approveGear, createGear, getGearView, specHistory, submitGear, updateGear } = await import('@/db/gear');
+const { featuresOfGear, rolesOfItem, alsoServesAsOf, itemServesAs } = await import('@/db/gear-roles');
+const { PATCH } = await import('@/app/api/v1/gear/[slug]/route');
+const { POST } = await import('@/app/api/v1/gear/route');
+const { updateGearAction } = await import('@/lib/gear/actions');
+
+type U = { id: string; email: string; name: string; role: Role };
+let author: U;
+let editor: U;
+
+const tables = [gearItems, specs, specChanges, gearPendingChanges, gearFeatures];
+const counts = () => tables.map((t) => (state.db.$client.prepare(`select count(*) as n from ${getTableName(t)}`).get() as { n: number }).n);
+const gearRow = (slug: string) => state.db.select().from(gearItems).all().find((g) => g.slug === slug)!;
+
+const lantern = (extra: Record<string, unknown> = {}) => ({
+  category: 'light',
+  name: 'Test Lantern',
+  maker: 'Glowmere',
+  kind: 'lantern',
+  chemistry: 'li-ion',
+  waterRating: 'IPX4',
+  specs: { mass: { value: '400 g' }, luminousFlux: { value: '300 lm' }, ratedEnergy: { value: '18.5 Wh' } },
+  ...extra,
+});
+
+const BASE = 'http://localhost:3000';
+const json = (method: string, path: string, body: unknown) =>
+  new Request(`${BASE}${path}`, { method, headers: { 'content-type': 'application/json', origin: BASE }, body: typeof body === 'string' ? body : JSON.stringify(body) });
+const params = (slug: string) => ({ params: Promise.resolve({ slug }) });
+
+function approve(slug: string) {
+  submitGear(state.db, author, slug);
+  approveGear(state.db, editor, slug);
+}
+
+beforeEach(() => {
+  state.db = createTestDb().db;
+  const make = (key: string, role: Role) => {
+    const u = createUser(state.db, { email: `${key}@example.org`, name: key, passwordHash: null, role });
+    return { id: u.id, email: u.email, name: u.name, role: u.role };
+  };
+  author = make('author', 'reviewer');
+  editor = make('editor', 'editor');
+  state.user = null;
+});
+
+describe('roles and features on create and edit', () => {
+  it('stores what a lantern also serves as and its answers, logged in words', () => {
+    const { id, slug } = createGear(state.db, author, lantern({ alsoServesAs: ['power-bank'], features: { 'red-mode': true, magnet: false, 'hanging-hook': { present: true, detail: 'steel' } } }));
+    const item = gearRow(slug);
+    expect(alsoServesAsOf(item)).toEqual(['power-bank']);
+    expect(rolesOfItem(item)).toEqual(['light', 'power-bank']);
+    expect(itemServesAs(item, 'power-bank')).toBe(true);
+    expect(itemServesAs(item, 'radio')).toBe(false);
+    expect(state.db.select().from(gearFeatures).all().map((r) => [r.name, r.present, r.detail]).sort()).toEqual([
+      ['hanging-hook', true, 'steel'],
+      ['magnet', false, null],
+      ['red-mode', true, null],
+    ]);
+    const history = specHistory(state.db, slug, author).filter((h) => h.key.startsWith('Feature') || h.key === 'Also serves as');
+    expect(history.map((h) => [h.key, h.oldText, h.newText]).sort()).toEqual([
+      ['Also serves as', null, 'Power bank'],
+      ['Feature: Hanging hook', null, 'has (steel)'],
+      ['Feature: Magnetic base', null, 'has not'],
+      ['Feature: Red light mode', null, 'has'],
+    ]);
+    // A draft is not public.
+    expect(featuresOfGear(state.db, [id])).toEqual({ [id]: [] });
+  });
+
+  it('changes a draft live; a patch without features keeps them', () => {
+    const { slug } = createGear(state.db, author, lantern({ features: { 'red-mode': true } }));
+    updateGear(state.db, author, slug, { features: { 'red-mode': false, 'lock-out': true } });
+    expect(count()).toBe(0);
+    expect(state.db.select().from(gearFeatures).all().map((r) => `${r.name}=${r.present}`).sort()).toEqual(['lock-out=true', 'red-mode=false']);
+    updateGear(state.db, author, slug, { name: 'Renamed lantern' });
+    expect(state.db.select().from(gearFeatures).all()).toHaveLength(2);
+    function count() {
+      return state.db.select().from(gearPendingChanges).all().length;
+    }
+  });
+
+  it('keeps an approved item’s answers and roles public until its edit is approved, then applies and notes it', () => {
+    const { id, slug } = createGear(state.db, author, lantern({ features: { 'red-mode': false } }));
+    approve(slug);
+    expect(featuresOfGear(state.db, [id])[id]).toEqual([{ name: 'red-mode', present: false }]);
+
+    const result = updateGear(state.db, author, slug, { alsoServesAs: ['power-bank'], features: { 'red-mode': true, 'output-12v': false }, changeNote: 'Maker’s manual lists a red mode' });
+    expect(result.pending).toBe(true);
+    // Readers still see the approved answers and a single role; the author sees the pending ones.
+    expect(featuresOfGear(state.db, [id])[id]).toEqual([{ name: 'red-mode', present: false }]);
+    expect(rolesOfItem(gearRow(slug))).toEqual(['light']);
+    expect(getGearView(state.db, slug, null).version.features).toEqual([{ name: 'red-mode', present: false }]);
+    expect(getGearView(state.db, slug, author).version.alsoServesAs).toEqual(['power-bank']);
+    expect(getGearView(state.db, slug, author).version.features.map((f) => f.name)).toEqual(['red-mode', 'output-12v']);
+    const pending = specHistory(state.db, slug, author).filter((h) => h.context === 'pending');
+    expect(pending.map((h) => [h.key, h.oldText, h.newText]).sort()).toEqual([
+      ['Also serves as', null, 'Power bank'],
+      ['Feature: 12 V output', null, 'has not'],
+      ['Feature: Red light mode', 'has not', 'has'],
+    ]);
+
+    approve(slug);
+    expect(featuresOfGear(state.db, [id])[id]!.map((f) => `${f.name}=${f.present}`).sort()).toEqual(['output-12v=false', 'red-mode=true']);
+    expect(rolesOfItem(gearRow(slug))).toEqual(['light', 'power-bank']);
+    expect(specHistory(state.db, slug, editor).filter((h) => h.context === 'approval').map((h) => h.key).sort()).toEqual(['Also serves as', 'Feature: 12 V output', 'Feature: Red light mode']);
+    const note = getGearView(state.db, slug, null).notes[0];
+    expect(note?.summary).toContain('Feature: Red light mode: has not → has');
+    expect(note?.summary).toContain('Also serves as: none → Power bank');
+  });
+
+  it('an edit that leaves out roles or features keeps the approved ones on approval', () => {
+    const { id, slug } = createGear(state.db, author, lantern({ alsoServesAs: ['power-bank'], features: { magnet: true } }));
+    approve(slug);
+    updateGear(state.db, author, slug, { name: 'Test Lantern mk2' });
+    approve(slug);
+    expect(rolesOfItem(gearRow(slug))).toEqual(['light', 'power-bank']);
+    expect(featuresOfGear(state.db, [id])[id]).toEqual([{ name: 'magnet', present: true }]);
+  });
+});
+
+describe('bad features and roles: 4xx naming the field, nothing stored', () => {
+  const cases: [string, Record<string, unknown>, string, RegExp][] = [
+    ['an unknown feature', { features: { 'laser-sight': true } }, 'features.laser-sight', /no feature "laser-sight"/],
+    ['a feature of another category', { features: { kickstand: true } }, 'features.kickstand', /not on the checklist/],
+    ['the derived IP rating', { features: { 'ip-rating': true } }, 'features.ip-rating', /water rating/],
+    ['a detail where none is taken', { features: { magnet: { present: true, detail: 'strong' } } }, 'features.magnet.detail', /takes no detail/],
+    ['a value other than yes/no', { features: { magnet: 'sometimes' } }, 'features.magnet', /.+/],
+    ['the primary category as a second role', { alsoServesAs: ['light'] }, 'alsoServesAs.0', /already its primary/],
+    ['an unknown category', { alsoServesAs: ['toaster'] }, 'alsoServesAs.0', /Choose categories/],
+    ['a role whose required spec is missing', { alsoServesAs: ['solar-panel'] }, 'specs.ratedPower.value', /required for a light serving as solar panel/],
+  ];
+
+  it.each(cases)('refuses %s on create and on an approved item’s edit', (_what, extra, field, message) => {
+    const before = counts();
+    let error: unknown;
+    try {
+      createGear(state.db, author, lantern(extra));
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(AppError);
+    expect((error as AppError).status).toBe(422);
+    expect((error as AppError).fields?.[field]?.[0]).toMatch(message);
+    expect(counts()).toEqual(before);
+
+    const { slug } = createGear(state.db, author, lantern());
+    approve(slug);
+    const afterApproval = counts();
+    expect(() => updateGear(state.db, author, slug, extra)).toThrow(AppError);
+    expect(counts()).toEqual(afterApproval);
+  });
+
+  it('answers 422 through the API with the field named and stores nothing', async () => {
+    state.user = author;
+    const before = counts();
+    const res = await POST(json('POST', '/api/v1/gear', lantern({ features: { 'laser-sight': true } })));
+    expect(res.status).toBe(422);
+    const body = (await res.json()) as { error: { fields: Record<string, string[]> } };
+    expect(Object.keys(body.error.fields)).toContain('features.laser-sight');
+    expect(counts()).toEqual(before);
+
+    const { slug } = createGear(state.db, author, lantern());
+    const mid = counts();
+    const patch = await PATCH(json('PATCH', `/api/v1/gear/${slug}`, { features: { 'red-mode': true, 'lock-out': 'perhaps' } }), params(slug));
+    expect(patch.status).toBe(422);
+    expect(counts()).toEqual(mid);
+  });
+
+  it('the server action refuses with field errors and saves nothing', async () => {
+    const { slug } = createGear(state.db, author, lantern());
+    state.user = author;
+    const before = counts();
+    const result = await updateGearAction(slug, { features: { kickstand: 'yes' } });
+    expect(result.fields?.['features.kickstand']?.[0]).toMatch(/not on the checklist/);
+    expect(counts()).toEqual(before);
+  });
+});
