@@ -15,6 +15,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import { sql, type SQL } from 'drizzle-orm';
 import type { Db } from './connection';
+import { radioQuietCondition } from './browse-radio-quiet';
 import { livePortsOf } from './gear-ports';
 import { gearItems, gearRatios, photos, specs, type GearItem, type Role } from './schema';
 import type { Figure, GearListResponse, GearSummary } from '@/lib/browse/contract';
@@ -59,7 +60,8 @@ function valueOf(key: string, query: Pick<GearListQuery, 'measuredOnly' | 'curre
     return sql`(CASE WHEN g.price_currency = ${query.currency!} AND g.price_minor IS NOT NULL THEN g.price_minor * 1.0 / ${factor} END)`;
   }
   if (kind === 'spec') {
-    const measured = query.measuredOnly ? sql` AND s.basis = 'measured'` : sql``;
+    // A measured-only spec (e.g. a noise rise) counts only as measured, whatever a row claims.
+    const measured = query.measuredOnly || (isSpecKey(key) && SPECS[key].measuredOnly) ? sql` AND s.basis = 'measured'` : sql``;
     return sql`(SELECT s.value FROM specs s WHERE s.gear_item_id = g.id AND s.key = ${key} AND s.mode = ''${measured} ORDER BY s.basis DESC LIMIT 1)`;
   }
   const measured = query.measuredOnly && !key.startsWith(MEASURED_VS_CLAIMED) ? sql` AND r.basis = 'measured'` : sql``;
@@ -91,6 +93,7 @@ function conditions(query: GearListQuery, caller: Caller, leave: Leave = {}): SQ
     parts.push(sql`(g.name LIKE ${pattern} ESCAPE '\\' OR g.maker LIKE ${pattern} ESCAPE '\\')`);
   }
   if (query.reviewedOnly) parts.push(HAS_PUBLISHED_REVIEW);
+  if (query.radioQuiet) parts.push(radioQuietCondition(query.radioQuiet));
   if (usesMoney(query) && !leave.currency) parts.push(sql`(g.price_currency IS NULL OR g.price_currency = ${query.currency!})`);
   for (const range of query.ranges) {
     if (leave.moneyRanges && isMoneyKey(range.key)) continue;

@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { CATEGORIES, isCurrencyCode, SPEC_KEYS, SPECS, type SpecKey } from '@/lib/measure';
 import { CATEGORY_DEFS, RATIO_LABELS } from '@/lib/gear/categories';
 import { AppError, type FieldErrors } from '@/lib/http/errors';
+import { radioQuietParam, type RadioQuietFilter } from './radio-quiet';
 
 /* ------------------------------------------------------------------------------------------------ */
 /* Keys one may filter and sort by                                                                  */
@@ -115,6 +116,7 @@ export const gearListQuerySchema = z
     limit: limitParam,
     cursor: cursorParam.optional(),
     units: unitsParam,
+    radioQuiet: radioQuietParam,
     ...rangeShape,
   })
   .superRefine((query, ctx) => {
@@ -156,6 +158,8 @@ export interface GearListQuery {
   cursor?: string;
   imperial: boolean;
   ranges: RangeFilter[];
+  /** Measured worst noise rise under the quiet threshold in these S-meter ranges (lib/browse/radio-quiet.ts). */
+  radioQuiet?: RadioQuietFilter;
 }
 
 /** `GET /api/v1/gear/{slug}`. */
@@ -269,6 +273,7 @@ export function parseGearListQuery(params: URLSearchParams): GearListQuery {
     cursor: parsed.cursor,
     imperial: parsed.units === 'imperial',
     ranges,
+    radioQuiet: parsed.radioQuiet,
   };
 }
 
