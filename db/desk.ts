@@ -7,6 +7,7 @@ import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from './connection';
 import { fieldTestItems, fieldTests, fieldTestStateEvents, gearItems, gearStateEvents, reviewRevisions, reviews, reviewStateEvents, users } from './schema';
 import type { DeskKind } from '@/lib/reviews/schemas';
+import { longTermNoteDeskRows } from './long-term-notes';
 
 export interface DeskRow {
   kind: DeskKind;
@@ -160,6 +161,7 @@ export function listDeskQueue(db: Db, filters: DeskFilters = {}): { rows: DeskRo
     ...(!filters.kind || filters.kind === 'review' ? reviewRows(db) : []),
     ...(!filters.kind || filters.kind === 'gear-item' ? gearRows(db) : []),
     ...(!filters.kind || filters.kind === 'field-test' ? fieldTestRows(db) : []),
+    ...(!filters.kind || filters.kind === 'long-term-note' ? longTermNoteDeskRows(db) : []),
   ];
   const authors = [...new Map(all.map((r) => [r.authorId, r.authorName])).entries()].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
   const rows = all.filter((r) => !filters.author || r.authorId === filters.author).sort((a, b) => a.since.getTime() - b.since.getTime());

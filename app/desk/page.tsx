@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { DeskLongTermNotes } from '@/components/long-term-notes/desk-long-term-notes';
 import { StateBadge } from '@/components/reviews/state-badge';
 import { getDb } from '@/db';
 import { listDeskQueue } from '@/db/desk';
@@ -10,7 +11,7 @@ import { deskFilterSchema, type DeskKind } from '@/lib/reviews/schemas';
 export const metadata: Metadata = { title: 'Review desk' };
 export const dynamic = 'force-dynamic';
 
-const KIND_LABELS: Record<DeskKind, string> = { review: 'Review', 'gear-item': 'Gear item', 'field-test': 'Field test' };
+const KIND_LABELS: Record<DeskKind, string> = { review: 'Review', 'gear-item': 'Gear item', 'field-test': 'Field test', 'long-term-note': 'Long-term note' };
 
 function age(since: Date, now: Date): string {
   const h = Math.max(0, (now.getTime() - since.getTime()) / 3_600_000);
@@ -28,7 +29,7 @@ export default async function ReviewDeskPage({ searchParams }: { searchParams: P
   return (
     <main className="mx-auto w-full max-w-6xl px-4 py-10 sm:px-6">
       <h1 className="text-3xl font-bold tracking-tight">Review desk</h1>
-      <p className="mt-2 max-w-[70ch] text-slate">Everything waiting for an editor, oldest first. Reviews open in a read view with the actions; gear items and field tests open on their own pages.</p>
+      <p className="mt-2 max-w-[70ch] text-slate">Everything waiting for an editor, oldest first. Reviews open in a read view with the actions; gear items and field tests open on their own pages; long-term notes are shown in full below the queue.</p>
       <form method="get" className="mt-6 flex flex-wrap items-end gap-4 rounded-md border border-rule bg-card p-4 text-sm" aria-label="Filters">
         <label className="space-y-1">
           <span className="block font-semibold">Kind</span>
@@ -100,6 +101,7 @@ export default async function ReviewDeskPage({ searchParams }: { searchParams: P
           </table>
         </div>
       )}
+      <DeskLongTermNotes filters={filters} />
     </main>
   );
 }

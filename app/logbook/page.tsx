@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { LogbookFieldTests } from '@/components/field-tests/logbook-field-tests';
+import { LogbookLongTermNotes } from '@/components/long-term-notes/logbook-long-term-notes';
 import { StatusBadge } from '@/components/gear/status-badge';
 import { getDb } from '@/db';
 import { listGearInReview, listLogbookGear, type LogbookGearRow } from '@/db/gear';
@@ -86,6 +87,9 @@ export default async function LogbookPage() {
       </section>
       <div className="mt-10">
         <LogbookFieldTests />
+      </div>
+      <div className="mt-10">
+        <LogbookLongTermNotes />
       </div>
       <p className="mt-10 text-sm text-slate">
         Reviews are written under <Link href="/write" className="font-semibold text-lichen underline">Write</Link>.

@@ -10,6 +10,7 @@ import { registerAuth } from './paths/auth';
 import { registerFieldTests } from './paths/field-tests';
 import { registerGearWrites } from './paths/gear';
 import { registerKits } from './paths/kits';
+import { registerLongTermNotes } from './paths/long-term-notes';
 import { registerPhotos } from './paths/photos';
 import { registerPublicReads } from './paths/public-reads';
 
@@ -27,6 +28,7 @@ export const API_AREAS: ApiArea[] = [
   { tag: 'Gear', description: 'Record gear items and change them (reviewers; editors for any item).', register: registerGearWrites },
   { tag: 'Photos', description: 'Photos of a gear item: list, upload, describe, delete.', register: registerPhotos },
   { tag: 'Field tests', description: 'Field-test records, their trials and readings, and the review workflow.', register: registerFieldTests },
+  { tag: 'Long-term notes', description: 'Dated notes on gear in service (use, wear, failures, repairs) and their review.', register: registerLongTermNotes },
   { tag: 'Kits', description: 'Kits and their power budget: your own kits, duplicates and share links.', register: registerKits },
   { tag: 'This document', description: 'The OpenAPI document itself, for code generators and API tools.', register: registerApiDocument },
   { tag: 'Personal tokens', description: 'Personal API tokens for scripts: created and revoked on your account page (/account), sent as `Authorization: Bearer <token>`.', register: registerAuth },

@@ -107,7 +107,7 @@ export const retractSchema = z.strictObject({
 export type RetractInput = z.input<typeof retractSchema>;
 
 /** Desk filters (query string). */
-export const DESK_KINDS = ['review', 'gear-item', 'field-test'] as const;
+export const DESK_KINDS = ['review', 'gear-item', 'field-test', 'long-term-note'] as const;
 export type DeskKind = (typeof DESK_KINDS)[number];
 export const deskFilterSchema = z.object({
   author: z.string().max(100).optional().catch(undefined),

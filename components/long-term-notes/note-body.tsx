@@ -1,0 +1,6 @@
+import { longTermNoteBodyHtml } from '@/lib/long-term-notes/render';
+
+/** A note's Markdown, sanitized by lib/markdown (the only HTML source allowed here). */
+export function NoteBody({ markdown, className = '' }: { markdown: string; className?: string }) {
+  return <div className={`prose-content text-sm ${className}`} data-testid="long-term-note-body" dangerouslySetInnerHTML={{ __html: longTermNoteBodyHtml(markdown) }} />;
+}
