@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { CategoryCautions } from '@/components/gear/category-cautions';
+import { LongTermTimeline } from '@/components/gear/long-term-timeline';
 import { PortsList } from '@/components/gear/ports-list';
 import { RatiosTable } from '@/components/gear/ratios-table';
 import { ReviewActions } from '@/components/gear/review-actions';
@@ -177,6 +178,8 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
           </ul>
         </section>
       ) : null}
+
+      <LongTermTimeline item={item} viewer={viewer} />
 
       <section aria-labelledby="photos-heading" className="space-y-4">
         <h2 id="photos-heading" className="text-xl font-semibold">
