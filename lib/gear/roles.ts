@@ -8,7 +8,7 @@
  */
 import { z } from 'zod';
 import { CATEGORIES, isCategory, type Category, type SpecKey } from '@/lib/measure';
-import { CATEGORY_DEFS, type CategorySpec } from './categories';
+import { CATEGORY_DEFS, type CategorySpec, type CautionKey } from './categories';
 
 /** Categories an item may also serve as ("other" says nothing and is not offered). */
 export const SECONDARY_ROLES: readonly Category[] = CATEGORIES.filter((c) => c !== 'other');
@@ -88,4 +88,11 @@ export function alsoServesText(alsoServesAs: readonly Category[]): string | null
   const nouns = alsoServesAs.map(roleNoun);
   const list = nouns.length === 1 ? nouns[0] : `${nouns.slice(0, -1).join(', ')} and ${nouns.at(-1)}`;
   return `Also serves as ${list}`;
+}
+
+/** The safety cautions of every role, primary first, each once. */
+export function roleCautions(roles: readonly Category[]): CautionKey[] {
+  const out: CautionKey[] = [];
+  for (const role of roles) for (const c of CATEGORY_DEFS[role].cautions) if (!out.includes(c)) out.push(c);
+  return out;
 }

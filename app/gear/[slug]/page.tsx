@@ -3,6 +3,8 @@ import Link from 'next/link';
 import { CategoryCautions } from '@/components/gear/category-cautions';
 import { LongTermTimeline } from '@/components/gear/long-term-timeline';
 import { PortsList } from '@/components/gear/ports-list';
+import { AlsoServesLine, RolesAndFeatures } from '@/components/gear/roles-and-features';
+import { roleCautions, rolesOf } from '@/lib/gear/roles';
 import { RatiosTable } from '@/components/gear/ratios-table';
 import { ReviewActions } from '@/components/gear/review-actions';
 import { SpecsTable } from '@/components/gear/specs-table';
@@ -70,6 +72,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
           {version.maker}
           {version.modelYear ? ` · model year ${version.modelYear}` : ''} · recorded by {item.ownerName}
         </p>
+        <AlsoServesLine version={version} />
         {item.approvedAt !== null ? <AddToSideBySide slug={item.slug} name={version.name} /> : null}
         {view.insider ? (
           <div className="flex flex-wrap items-center gap-3">
@@ -128,6 +131,8 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
           ) : null}
         </dl>
       </section>
+
+      <RolesAndFeatures version={version} lines={view.lines} units={units} />
 
       <PortsList ports={version.ports} />
 
@@ -189,7 +194,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
         {mayManagePhotos ? <PhotoUploader slug={item.slug} photoCount={countPhotos(getDb(), item.id)} /> : null}
       </section>
 
-      <CategoryCautions cautions={def.cautions} />
+      <CategoryCautions cautions={roleCautions(rolesOf(version.category, version.alsoServesAs))} />
 
       {history.length ? (
         <details className="rounded-lg border border-rule p-4 text-sm" data-testid="spec-history">
