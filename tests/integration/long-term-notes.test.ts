@@ -8,6 +8,10 @@ import { listDeskQueue } from '@/db/desk';
 import { listOwnLongTermNotes, listPublicLongTermNotes, mayAddLongTermNote } from '@/db/long-term-notes';
 import { handleCreateNote, handleGetNote, handleListNotes, handleNoteTransition, handleUpdateNote } from '@/lib/long-term-notes/handlers';
 import { longTermNoteBodyHtml } from '@/lib/long-term-notes/render';
+import { wholeMonthsBetween } from '@/lib/long-term-notes/months';
+import { seedDemo } from '@/db/seed';
+import { DEMO_GEAR } from '@/db/seed/demo-data';
+import { DEMO_LONG_TERM_NOTES } from '@/db/seed/long-term-notes';
 
 /*
  * Long-term notes through the route handlers (security-tests.md AC-01 authorization matrix, AC-02 IDOR,
@@ -346,5 +350,31 @@ describe('Markdown in a note is sanitized (MD-01)', () => {
     const html = longTermNoteBodyHtml(stored);
     expect(html).toContain('Hook report.');
     expect(html).not.toMatch(/<script|<iframe|<svg|onerror|onload|ontoggle|javascript:|data:text\/html/i);
+  });
+});
+
+describe('demo long-term notes', () => {
+  it('seed dated notes over months on several items: mostly approved, one waiting on the desk, idempotent', async () => {
+    const fresh = createTestDb().db;
+    await seedDemo(fresh);
+    const rows = fresh.$client.prepare('select id, gear_item_id as item, status from long_term_notes').all() as { id: string; item: string; status: string }[];
+    expect(rows.length).toBe(DEMO_LONG_TERM_NOTES.length);
+    expect(new Set(rows.map((r) => r.item)).size).toBeGreaterThanOrEqual(4);
+    expect(rows.filter((r) => r.status === 'approved').length).toBeGreaterThan(rows.length / 2);
+    expect(listDeskQueue(fresh, { kind: 'long-term-note' }).rows.map((r) => r.id)).toEqual(['demo-ltn-hearthglow-repair']);
+    const hearthglow = fresh.select().from(gearItems).all().find((g) => g.slug === 'glowmere-hearthglow-400')!;
+    const timeline = listPublicLongTermNotes(fresh, hearthglow);
+    expect(timeline.map((n) => n.notedOn)).toEqual(['2026-09-12', '2026-11-08']); // oldest first; the note in review is not public
+    // Each note's author owns the item (the eligibility rule), and its months in service are the whole
+    // months from the price-paid date to the note's date (lib/long-term-notes/months.ts, worked in tests/unit).
+    for (const n of DEMO_LONG_TERM_NOTES) {
+      const item = DEMO_GEAR.find((g) => g.slug === n.item)!;
+      expect(item.owner, n.id).toBe(n.author);
+      expect(n.monthsInService, n.id).toBe(wholeMonthsBetween(item.pricePaidOn, n.notedOn));
+    }
+    const events = fresh.$client.prepare('select count(*) as n from long_term_note_state_events').get() as { n: number };
+    await seedDemo(fresh);
+    expect((fresh.$client.prepare('select count(*) as n from long_term_notes').get() as { n: number }).n).toBe(rows.length);
+    expect((fresh.$client.prepare('select count(*) as n from long_term_note_state_events').get() as { n: number }).n).toBe(events.n);
   });
 });
