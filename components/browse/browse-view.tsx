@@ -13,6 +13,7 @@ import { UnitsToggle } from '../units-toggle';
 import type { UnitSystem } from '@/lib/units/display';
 import { filterUnit } from '@/lib/units/filter';
 import { RangeFilter } from './range-filter';
+import { offersRadioQuiet, RadioQuietFilterChips } from './radio-quiet-filter';
 import { BROWSE_CURRENCIES, sortOptions } from './sort-options';
 
 interface Props {
@@ -78,6 +79,7 @@ export function BrowseView({ initial, units }: Props) {
     if (key === 'category') {
       next.kind = null;
       if (v === null || !sortOptions(v, null).some((o) => o.key === fixed.sort)) next.sort = null;
+      if (!offersRadioQuiet(v)) next.radioQuiet = null;
     }
     if (key === 'sort') {
       next.order = null;
@@ -172,6 +174,8 @@ export function BrowseView({ initial, units }: Props) {
           className={field}
           nonNegative
         />
+
+        {offersRadioQuiet(category) ? <RadioQuietFilterChips value={fixed.radioQuiet} onChange={(v) => set('radioQuiet', v)} /> : null}
 
         <div className="grid gap-3">
           <div>

@@ -4,6 +4,7 @@ import { kindLabel } from '@/lib/gear/categories';
 import { isCategory } from '@/lib/measure';
 import { AddToSideBySide } from '../side-by-side/add-to-side-by-side';
 import { figureText, priceText } from './figure-text';
+import { RadioQuietBadge } from './radio-quiet-badge';
 
 const BASIS = {
   measured: { mark: '●', text: 'measured' },
@@ -81,6 +82,7 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
           {item.price && sort?.key !== 'price' ? <span className="figure font-mono text-slate">{priceText(item.price)}</span> : null}
           {item.status ? <span className="rounded bg-amber-tint px-1.5 text-xs">Yours · {item.status}</span> : null}
         </p>
+        <RadioQuietBadge specs={item.specs} />
       </div>
       <div className="w-full pl-20 sm:w-auto sm:shrink-0 sm:self-center sm:pl-0">
         <AddToSideBySide slug={item.slug} name={item.name} compact />

@@ -1,7 +1,7 @@
 /**
  * What the browse page offers to sort and range-filter by: every spec and value ratio of the chosen
  * category (measured ÷ claimed per spec too) and the price; without a category, the figures every
- * category shares (mass, price).
+ * category shares (mass, price) and the radio-noise rises.
  */
 import { MEASURED_VS_CLAIMED, isMoneyKey } from '@/lib/browse/query';
 import { CATEGORY_DEFS, ratioLabel } from '@/lib/gear/categories';
@@ -36,7 +36,10 @@ function unitOf(key: string, currency: string | null): string {
 
 export function sortOptions(category: string | null, currency: string | null): SortOption[] {
   const option = (key: string, label: string): SortOption => ({ key, label, unit: unitOf(key, currency), money: isMoneyKey(key) });
-  if (!category || !isCategory(category)) return [option('mass', SPECS.mass.label), option('price', 'Price paid')];
+  if (!category || !isCategory(category)) {
+    // Noise rises are measured on anything powered, so they sort across categories too (items never checked come last).
+    return [option('mass', SPECS.mass.label), option('price', 'Price paid'), option('noiseRiseBelow30', SPECS.noiseRiseBelow30.label), option('noiseRiseAbove30', SPECS.noiseRiseAbove30.label)];
+  }
   const def = CATEGORY_DEFS[category];
   return [
     ...def.specs.map((s) => option(s.key, s.label)),

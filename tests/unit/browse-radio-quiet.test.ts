@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { browseApiQuery, browseValuesFromSearchParams } from '@/components/browse/browse-params';
+import { sortOptions } from '@/components/browse/sort-options';
 import { parseGearListQuery } from '@/lib/browse/query';
 import { NOISE_RISE_SPEC, RADIO_QUIET_BELOW_DB, radioQuietRanges, radioQuietSpecKeys, rangeVerdicts } from '@/lib/browse/radio-quiet';
 import { AppError } from '@/lib/http/errors';
@@ -74,5 +76,22 @@ describe('verdict per range from an item\'s specs', () => {
     expect(rangeVerdicts({})).toEqual([]);
     expect(rangeVerdicts({ noiseRiseBelow30: { value: 0.2, basis: 'claimed' } })).toEqual([]);
     expect(rangeVerdicts({ noiseRiseBelow30: { value: Number.NaN, basis: 'measured' } })).toEqual([]);
+  });
+});
+
+describe('browse page wiring', () => {
+  it('carries radioQuiet from the page URL into the API query', () => {
+    expect(browseApiQuery(browseValuesFromSearchParams({ category: 'power-bank', radioQuiet: 'both' }))).toBe('category=power-bank&radioQuiet=both&limit=24');
+    // What the page sends is what the API accepts.
+    expect(parse('category=power-bank&radioQuiet=both&limit=24').radioQuiet).toBe('both');
+  });
+
+  it('offers the noise rises as sorts without a category and in every category whose specs list them', () => {
+    const keys = (category: string | null) => sortOptions(category, null).map((o) => o.key);
+    expect(keys(null)).toEqual(expect.arrayContaining(['noiseRiseBelow30', 'noiseRiseAbove30']));
+    expect(sortOptions(null, null).find((o) => o.key === 'noiseRiseBelow30')!.unit).toBe('dB');
+    expect(keys('power-bank')).toContain('noiseRiseAbove30');
+    // Measured-only: no "measured ÷ claimed" sort for them.
+    expect(keys('power-bank')).not.toContain('measured-vs-claimed:noiseRiseBelow30');
   });
 });
