@@ -2,6 +2,7 @@ import { and, asc, count, desc, eq, inArray, isNotNull, or } from 'drizzle-orm';
 import { randomBytes, randomUUID } from 'node:crypto';
 import type { Db } from './connection';
 import { portsOfGear } from './gear-ports';
+import { alsoServesAsOf } from './gear-roles';
 import { fieldTests, gearItems, kitEntries, kits, readings, specs, trials } from './schema';
 import { AppError } from '@/lib/http/errors';
 import { parseWith } from '@/lib/http/api';
@@ -84,6 +85,7 @@ export function readableCatalog(db: Db, viewer: KitViewer | null, ids?: readonly
       chemistry: gearItems.chemistry,
       priceMinor: gearItems.priceMinor,
       priceCurrency: gearItems.priceCurrency,
+      alsoServesAs: gearItems.alsoServesAs,
     })
     .from(gearItems)
     .where(where)
@@ -104,6 +106,7 @@ export function readableCatalog(db: Db, viewer: KitViewer | null, ids?: readonly
       chemistry: (CHEMISTRIES as readonly string[]).includes(r.chemistry ?? '') ? (r.chemistry as Chemistry) : null,
       specs: [],
       pairedSkyShares: [],
+      alsoServesAs: alsoServesAsOf(r),
     };
   }
   for (const s of specRows) catalog[s.gearItemId]?.specs.push({ key: s.key, mode: s.mode, basis: s.basis, value: s.value });

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useController, type Control, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import { Button, Field, TextInput } from '@/components/ui/form';
 import { CHEMISTRIES, isCurrencyCode, moneyFromMajor, moneyToMajor } from '@/lib/measure';
-import { budgetRole, CHEMISTRY_LABELS, defaultMode, depthSource, drawModes, pickSpec, UNPUBLISHED_ITEM, type KitCatalogItem, type KitFormValues, type KitInput } from '@/lib/kits';
+import { budgetRole, storesEnergy, CHEMISTRY_LABELS, defaultMode, depthSource, drawModes, pickSpec, UNPUBLISHED_ITEM, type KitCatalogItem, type KitFormValues, type KitInput } from '@/lib/kits';
 import { fmt, fmtPercent } from './format';
 import { FreePowerFields } from './free-power-fields';
 
@@ -27,6 +27,8 @@ export function EntryRow({ index, item, hidden, form, value, onRemove }: { index
   const id = (key: string) => `entries.${index}.${key}`;
   const name = hidden ? UNPUBLISHED_ITEM : item ? `${item.maker} ${item.name}` : value?.freeName || 'Your own entry';
   const role = item ? budgetRole(item) : 'load';
+  // A lantern that also serves as a power bank is a load and storage at once.
+  const stores = item ? storesEnergy(item) : false;
   const modes = item ? drawModes(item) : [];
   const chosenMode = modes.find((m) => m.mode === value?.loadMode) ?? defaultMode(modes);
   const duty = typeof value?.dutyCycle === 'number' && Number.isFinite(value.dutyCycle) ? value.dutyCycle : null;
@@ -87,9 +89,10 @@ export function EntryRow({ index, item, hidden, form, value, onRemove }: { index
           </>
         ) : null}
 
-        {item && role === 'storage' ? (
+        {item && stores ? (
           <>
             <p className="text-sm sm:col-span-4">
+              {role !== 'storage' ? `Also serves as ${item.alsoServesAs?.includes('power-bank') ? 'a power bank' : 'a 12 V battery'}: its stored energy counts in the budget, and its outputs can charge other devices. ` : ''}
               Rated {fmt(pickSpec(item, 'ratedEnergy')?.value ?? 0)} Wh
               {pickSpec(item, 'continuousPower') ? `, up to ${fmt(pickSpec(item, 'continuousPower')?.value ?? 0)} W continuous` : ''} (claimed).
             </p>
@@ -117,7 +120,7 @@ export function EntryRow({ index, item, hidden, form, value, onRemove }: { index
           </>
         ) : null}
         {item && role === 'panel' ? <p className="text-sm sm:col-span-3">Rated {fmt(pickSpec(item, 'ratedPower')?.value ?? 0)} W in full sun ({pickSpec(item, 'ratedPower')?.basis}).</p> : null}
-        {item && role === 'none' ? <p className="text-sm text-slate sm:col-span-3">Counted in the totals; it neither uses nor stores energy in the budget.</p> : null}
+        {item && role === 'none' && !stores ? <p className="text-sm text-slate sm:col-span-3">Counted in the totals; it neither uses nor stores energy in the budget.</p> : null}
       </div>
       {!item && !hidden ? (
         <div className="mt-4 border-t border-rule pt-3">

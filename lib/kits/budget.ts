@@ -18,7 +18,7 @@ import {
   type PowerBudgetResult,
 } from '@/lib/measure';
 import { budgetPath, kitChargingPaths, pathText, type KitChargingPaths } from './paths';
-import { entryName, pickSpec, resolveEntries, type ResolvedEntry } from './resolve';
+import { entryName, gathersSolar, pickSpec, resolveEntries, storesEnergy, type ResolvedEntry } from './resolve';
 import type { KitEntryInput, KitInput } from './schemas';
 import type { KitCatalog, KitCatalogItem, SpecBasis } from './types';
 
@@ -262,11 +262,12 @@ export function kitBudget(kit: BudgetSettings & { entries: readonly KitEntryInpu
     if (e.kind === 'hidden') continue;
     loads.push(...loadLines(e, warnings));
     if (e.kind !== 'catalog') continue;
-    const role = budgetRole(e.item);
-    if (role === 'storage') {
+    // An item counts in every role it has: a lantern that also serves as a power bank is a load and storage.
+    if (storesEnergy(e.item)) {
       const s = storageLine(e, warnings);
       if (s) storage.push(s);
-    } else if (role === 'panel') {
+    }
+    if (gathersSolar(e.item)) {
       const p = panelLine(e);
       if (p) panels.push(p);
     }

@@ -15,7 +15,7 @@ import {
   type KitPowerRole,
   type Port,
 } from '@/lib/measure';
-import { entryName, pickSpec, resolveEntries, type ResolvedEntry } from './resolve';
+import { entryName, pickSpec, resolveEntries, storesEnergy, type ResolvedEntry } from './resolve';
 import { freePowerItem, type KitEntryInput } from './schemas';
 import type { KitCatalog, KitCatalogItem } from './types';
 
@@ -71,6 +71,8 @@ export interface KitChargingPaths {
 export function catalogPowerRole(item: KitCatalogItem): KitPowerRole | null {
   if (item.category === 'solar-panel') return 'source';
   if (item.category === 'power-bank' || item.category === 'battery-12v') return 'storage';
+  // With no ports and no draw, an item that also serves as a bank is only that (see catalogPowerItems).
+  if (storesEnergy(item) && !(item.ports ?? []).some((p) => p.direction !== 'output') && !item.specs.some((s) => s.key === 'powerDraw')) return 'storage';
   const ports = item.ports ?? [];
   if (item.category === 'cable-adapter') return ports.length >= 2 ? (isConverter(ports) ? 'adapter' : 'cable') : null;
   return ports.length > 0 || item.specs.some((s) => s.key === 'powerDraw') ? 'device' : null;
@@ -83,9 +85,25 @@ function isConverter(ports: readonly Port[]): boolean {
 
 const itemId = (index: number) => `entry-${index}`;
 
-function catalogPowerItem(e: ResolvedEntry & { kind: 'catalog' }): KitPowerItem | null {
+/**
+ * The entry as `findChargingPaths` items: usually one; an item that also serves as a bank or battery
+ * (a lantern with a USB output) is both a device and a storage, one physical unit (`unit`) so a path
+ * never runs from it back into itself.
+ */
+function catalogPowerItems(e: ResolvedEntry & { kind: 'catalog' }): KitPowerItem[] {
   const role = catalogPowerRole(e.item);
-  if (!role) return null;
+  const main = role ? catalogPowerItem(e, role) : null;
+  if (!storesEnergy(e.item) || role === 'storage') return main ? [main] : [];
+  const ports = e.item.ports ?? [];
+  if (!ports.some((p) => p.direction !== 'input')) return main ? [main] : [];
+  const storage: KitPowerItem = { id: `${itemId(e.index)}${STORAGE_ROLE_SUFFIX}`, unit: itemId(e.index), name: entryName(e), role: 'storage', quantity: e.quantity, ports };
+  return main ? [{ ...main, unit: itemId(e.index) }, storage] : [storage];
+}
+
+/** Id suffix of the storage role of an item that also serves as a bank or battery. */
+const STORAGE_ROLE_SUFFIX = ':storage';
+
+function catalogPowerItem(e: ResolvedEntry & { kind: 'catalog' }, role: KitPowerRole): KitPowerItem | null {
   const name = entryName(e);
   const ports = e.item.ports ?? [];
   if (role === 'cable' || role === 'adapter') {
@@ -115,7 +133,8 @@ function freeItem(e: ResolvedEntry & { kind: 'free' }): KitPowerItem | null {
 export function kitPowerItems(entries: readonly KitEntryInput[], catalog: KitCatalog): KitPowerItem[] {
   return resolveEntries(entries, catalog).flatMap((e) => {
     if (e.kind === 'hidden') return [];
-    const item = e.kind === 'catalog' ? catalogPowerItem(e) : freeItem(e);
+    if (e.kind === 'catalog') return catalogPowerItems(e);
+    const item = freeItem(e);
     return item ? [item] : [];
   });
 }

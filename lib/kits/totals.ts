@@ -1,7 +1,6 @@
 /** A kit's totals: mass by category, price per currency (never mixed), light output, stored energy. Pure. */
 import { CATEGORIES, type Category } from '@/lib/measure';
-import { budgetRole } from './budget';
-import { entryName, pickSpec, resolveEntries } from './resolve';
+import { entryName, pickSpec, resolveEntries, storesEnergy } from './resolve';
 import type { KitEntryInput } from './schemas';
 import type { KitCatalog, SpecBasis } from './types';
 
@@ -30,7 +29,7 @@ export interface KitTotals {
   priceMissing: string[];
   /** Σ highest-mode light output × quantity, lm. */
   lightLm: number;
-  /** Σ rated energy × quantity of the batteries and power banks, Wh. */
+  /** Σ rated energy × quantity of the batteries and power banks (and items that also serve as one), Wh. */
   storedWh: number;
   /** Σ rated energy × quantity of the cells inside other devices (lanterns, radios), Wh. */
   deviceCellsWh: number;
@@ -73,7 +72,7 @@ export function kitTotals(entries: readonly KitEntryInput[], catalog: KitCatalog
     if (flux) totals.lightLm += flux.value * e.quantity;
     const energy = pickSpec(item, 'ratedEnergy');
     if (energy) {
-      if (budgetRole(item) === 'storage') totals.storedWh += energy.value * e.quantity;
+      if (storesEnergy(item)) totals.storedWh += energy.value * e.quantity;
       else totals.deviceCellsWh += energy.value * e.quantity;
     }
   }

@@ -38,6 +38,11 @@ export interface KitCatalogItem {
   pairedSkyShares: PairedSkyShare[];
   /** Approved ports of the item (lib/measure `Port`); absent or empty when the catalog lists none. */
   ports?: Port[];
+  /**
+   * Other categories the item also serves as (never its primary one): a lantern that also serves as a
+   * power bank stores energy for the kit and feeds other devices through its output ports.
+   */
+  alsoServesAs?: Category[];
 }
 
 /** Catalog items by id. An entry whose item is missing here is shown as "unpublished item". */

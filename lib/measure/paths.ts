@@ -28,6 +28,11 @@ export interface KitPowerItem {
   role: KitPowerRole;
   /** Whole number ≥ 1; default 1. Paths are possible routes, not an allocation of units. */
   quantity?: number;
+  /**
+   * Items with the same `unit` are one physical thing in two roles (a lantern that is a device and
+   * also serves as a power bank): a path never passes through it twice. Default: the item's id.
+   */
+  unit?: string;
   /** Ports of a source, storage or device. */
   ports?: Port[];
   /** Cable or adapter: the end that plugs into an output. */
@@ -108,6 +113,7 @@ const MAX_NAME = 200;
 
 interface Item {
   id: string;
+  unit: string;
   name: string;
   role: KitPowerRole;
   quantity: number;
@@ -170,6 +176,7 @@ function validateKit(kit: unknown): Item[] {
     ids.add(id);
     const name = text(v.name, `Item ${i + 1}: name`, MAX_NAME);
     const what = `Item ${i + 1} (${name})`;
+    const unit = v.unit === undefined || v.unit === null ? id : text(v.unit, `${what}: unit`, MAX_ID);
     if (typeof v.role !== 'string' || !(KIT_POWER_ROLES as readonly string[]).includes(v.role)) {
       throw new MeasureError('out-of-range', `${what}: role must be one of ${KIT_POWER_ROLES.join(', ')}, got "${String(v.role)}".`);
     }
@@ -192,7 +199,7 @@ function validateKit(kit: unknown): Item[] {
         v.efficiency === undefined || v.efficiency === null
           ? 1
           : assertRange(v.efficiency as number, `${what}: efficiency`, { min: 0, minExclusive: true, max: 1 });
-      return { id, name, role, quantity, ports: [], from, to, efficiency };
+      return { id, unit, name, role, quantity, ports: [], from, to, efficiency };
     }
     if (v.from != null || v.to != null) {
       throw new MeasureError('out-of-range', `${what}: only a cable or adapter has two ends; list this item's ports instead.`);
@@ -202,7 +209,7 @@ function validateKit(kit: unknown): Item[] {
       throw new MeasureError('out-of-range', `${what}: ports must be a list of at most ${PATH_SEARCH_LIMITS.portsPerItem}.`);
     }
     const ports = portsRaw.map((p, j) => validatePort(p, `${what}: port ${j + 1}`));
-    return { id, name, role, quantity, ports, efficiency: 1 };
+    return { id, unit, name, role, quantity, ports, efficiency: 1 };
   });
 }
 
@@ -409,7 +416,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       return;
     }
     for (const { item: target, port, index } of candidates(offer.port.kind)) {
-      if (visited.has(target.id)) continue;
+      if (visited.has(target.unit)) continue;
       const f = fit(offer, port);
       if (target.role === 'device') {
         if (f.problem !== 'connector') for (const s of steps) if (s.kind === 'output') (reachedFrom.get(target.id) as Set<string>).add(s.itemId);
@@ -425,7 +432,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
       }
       if (f.fits && steps[0]?.role === 'source') feedsStorage.add(steps[0].itemId);
       if (!f.fits || storages >= PATH_SEARCH_LIMITS.storagesInAPath) continue;
-      const nextVisited = new Set(visited).add(target.id);
+      const nextVisited = new Set(visited).add(target.unit);
       target.ports.forEach((outPort, outIndex) => {
         // The same port may be used in and out: paths are routes for energy over time, not at one moment.
         if (!isOutput(outPort)) return;
@@ -512,7 +519,7 @@ export function findChargingPaths(kit: ChargingKit): ChargingPathsResult {
             efficiency: port.efficiency ?? 1,
           },
         ],
-        new Set([start.id]),
+        new Set([start.unit]),
         new Set(),
         0,
         [],
@@ -573,8 +580,10 @@ function reasonsForNoPath(
 ): string[] {
   const inputs = device.ports.filter(isInput);
   if (inputs.length === 0) return [`${device.name} lists no power input; add its charging or supply port`];
-  if (starts.length === 0) return ['the kit has no battery, bank or panel to draw from'];
-  const withOutputs = starts.filter((s) => s.ports.some(isOutput));
+  // A device that also serves as a bank cannot charge from itself.
+  const others = starts.filter((s) => s.unit !== device.unit);
+  if (others.length === 0) return ['the kit has no battery, bank or panel to draw from'];
+  const withOutputs = others.filter((s) => s.ports.some(isOutput));
   if (withOutputs.length === 0) return ['no battery, bank or panel in the kit lists an output port'];
   if (inputs.every((p) => p.kind === 'mains-input')) {
     return [`${device.name} charges only from mains; the kit has no mains outlet`];
