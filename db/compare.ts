@@ -11,6 +11,7 @@ import { findReadableGear, gearSummaries, type Caller } from './browse';
 import { isPublicFieldTest, itemsOfTest } from './field-tests-access';
 import type { CompareResponse } from '@/lib/browse/contract';
 import { buildComparison, type CompareConditions, type CompareItemInput } from '@/lib/compare';
+import { withRadioNoise } from '@/lib/compare/radio-noise';
 
 function latestPublicConditions(db: Db, itemId: string): CompareConditions | null {
   const testIds = db
@@ -47,5 +48,5 @@ export function compareGear(db: Db, slugs: readonly string[], caller: Caller, op
     ratios: s.ratios,
     conditions: latestPublicConditions(db, items[i]!.id),
   }));
-  return buildComparison(inputs, options);
+  return withRadioNoise(buildComparison(inputs, options), inputs);
 }

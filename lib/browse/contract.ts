@@ -82,7 +82,7 @@ export interface CompareRow {
 }
 
 export interface CompareGroup {
-  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions';
+  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions' | 'radio-noise';
   label: string;
   rows: CompareRow[];
 }

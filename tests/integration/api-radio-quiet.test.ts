@@ -11,7 +11,7 @@ import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { Db } from '@/db/connection';
 import { fieldTestItems, fieldTests, specs, type Role } from '@/db/schema';
 import { createTestDb } from '@/db/test-db';
-import type { GearListResponse } from '@/lib/browse/contract';
+import type { CompareResponse, GearListResponse } from '@/lib/browse/contract';
 import { seedCatalog, type Seeded } from './api-seed';
 
 const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
@@ -19,6 +19,7 @@ vi.mock('@/db', () => ({ getDb: () => state.db }));
 vi.mock('@/lib/auth/guard', () => ({ getCurrentUser: async () => state.user }));
 
 const { GET } = await import('@/app/api/v1/gear/route');
+const { GET: COMPARE } = await import('@/app/api/v1/compare/route');
 
 const BASE = 'http://localhost:3000';
 let seed: Seeded;
@@ -148,5 +149,33 @@ describe('sorting by noise rise (generic spec sort)', () => {
     const all = slugs((await list('?sort=noiseRiseAbove30&limit=100')).body);
     expect(seen).toEqual(all);
     expect(all.slice(0, 4)).toEqual(s('ember', 'brick', 'sheet', 'cell')); // 0, 0.5, 0.9, 7.5 dB
+  });
+});
+
+describe('GET /api/v1/compare: Radio noise group', () => {
+  it('shows each item\'s verdict and worst rise per range, best = lowest rise, from the measured specs only', async () => {
+    const res = await COMPARE(new Request(`${BASE}/api/v1/compare?items=${s('cell', 'brick', 'beacon').join(',')}`));
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as CompareResponse;
+    const group = body.groups.find((g) => g.id === 'radio-noise')!;
+    expect(group.label).toBe('Radio noise');
+    const row = (key: string) => group.rows.find((r) => r.key === key)!;
+    // cell 0.8 / 7.5 dB, brick 3 / 0.5 dB, beacon only a claimed 0.1 dB (not shown).
+    expect(row('radio-noise-verdict:below-30mhz').cells.map((c) => c.value)).toEqual(['quiet', 'slight', null]);
+    expect(row('noiseRiseBelow30').cells.map((c) => c.value)).toEqual([0.8, 3, null]);
+    expect(row('noiseRiseBelow30').cells.map((c) => c.best)).toEqual([true, false, false]);
+    expect(row('radio-noise-verdict:above-30mhz').cells.map((c) => c.value)).toEqual(['noisy', 'quiet', null]);
+    expect(row('noiseRiseAbove30').cells.map((c) => c.best)).toEqual([false, true, false]);
+    expect(row('noiseRiseAbove30').cells[0]!.provenance).toMatch(/^\/field-tests\//);
+    // Not repeated in Specs.
+    const specRows = body.groups.find((g) => g.id === 'specs')!.rows.map((r) => r.key);
+    expect(specRows).not.toContain('noiseRiseBelow30');
+    expect(specRows).not.toContain('noiseRiseAbove30');
+    expect(body.groups.map((g) => g.id).indexOf('radio-noise')).toBe(body.groups.map((g) => g.id).indexOf('specs') + 1);
+  });
+
+  it('has no Radio noise group when none of the items was checked', async () => {
+    const body = (await (await COMPARE(new Request(`${BASE}/api/v1/compare?items=${s('pocket', 'beacon').join(',')}`))).json()) as CompareResponse;
+    expect(body.groups.map((g) => g.id)).not.toContain('radio-noise');
   });
 });
