@@ -4,14 +4,16 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useMemo, useState, useTransition } from 'react';
 import { get, useFieldArray, useForm, useWatch, type Control, type FieldPath, type Resolver, type UseFormRegister } from 'react-hook-form';
 import { CATEGORIES, CHEMISTRIES, type Category } from '@/lib/measure';
-import { clean, type GearFormValues } from '@/lib/gear/form-values';
+import { clean, formRoles, type GearFormValues } from '@/lib/gear/form-values';
 import { createGearAction, updateGearAction, type GearFormState } from '@/lib/gear/actions';
-import { CATEGORY_DEFS, CHEMISTRY_LABELS, CLAIM_SOURCE_LABELS, CLAIM_SOURCES, claimableSpecs } from '@/lib/gear/categories';
+import { CATEGORY_DEFS, CHEMISTRY_LABELS, CLAIM_SOURCE_LABELS, CLAIM_SOURCES } from '@/lib/gear/categories';
+import { roleSpecs } from '@/lib/gear/roles';
 import { formatQuantity } from '@/lib/gear/format';
 import { tryParseQuantity, TYPED_UNITS, type TypedQuantity } from '@/lib/gear/parse-quantity';
 import { gearInputSchema } from '@/lib/gear/schemas';
 import { Button, Field, FormMessage, TextInput } from '@/components/ui/form';
 import { PortsFieldset } from './ports-fieldset';
+import { AlsoServesFieldset, FeaturesFieldset } from './roles-features-fieldsets';
 
 const CURRENCIES = ['USD', 'EUR', 'GBP', 'CAD', 'AUD', 'NZD', 'CHF', 'SEK', 'NOK', 'DKK', 'JPY'];
 
@@ -30,6 +32,13 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
   const form = useForm<GearFormValues>({ resolver, defaultValues: defaults, mode: 'onSubmit' });
   const category = (useWatch({ control: form.control, name: 'category' }) as Category) || 'light';
   const def = CATEGORY_DEFS[category];
+  const alsoServesAs = (useWatch({ control: form.control, name: 'alsoServesAs' }) as string[] | string | false | undefined) || [];
+  // The union of the roles' specs, chemistry and water rating (a lantern serving as a bank asks for the bank's figures).
+  const roles = formRoles({ category, alsoServesAs: Array.isArray(alsoServesAs) ? alsoServesAs : [alsoServesAs] });
+  const roleDefs = roles.map((r) => CATEGORY_DEFS[r]);
+  const chemistryShown = roleDefs.some((d) => d.chemistry.shown);
+  const chemistryRequired = roleDefs.some((d) => d.chemistry.required);
+  const specsShown = roleSpecs(roles).filter((s) => s.basis !== 'measured-only');
 
   const errorAt = (path: string): string[] | undefined => {
     const server = state.fields?.[path];
@@ -101,10 +110,10 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
             <TextInput id="gear-paid-on" type="date" invalid={!!errorAt('pricePaidOn')} {...form.register('pricePaidOn')} />
           </Field>
         </div>
-        {def.chemistry.shown ? (
+        {chemistryShown ? (
           <Field id="gear-chemistry" label="Cell chemistry" errors={errorAt('chemistry')}>
             <select id="gear-chemistry" className="block w-full rounded-md border border-rule bg-paper px-3 py-2" {...form.register('chemistry')}>
-              <option value="">{def.chemistry.required ? 'Choose…' : 'Not stated / replaceable cells'}</option>
+              <option value="">{chemistryRequired ? 'Choose…' : 'Not stated / replaceable cells'}</option>
               {CHEMISTRIES.map((c) => (
                 <option key={c} value={c}>
                   {CHEMISTRY_LABELS[c]}
@@ -113,7 +122,7 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
             </select>
           </Field>
         ) : null}
-        {def.waterRating ? (
+        {roleDefs.some((d) => d.waterRating) ? (
           <Field id="gear-water" label="Water rating (IEC 60529 IP code)" hint="For example IPX4 or IP67." errors={errorAt('waterRating')}>
             <TextInput id="gear-water" className="max-w-32 font-mono" invalid={!!errorAt('waterRating')} {...form.register('waterRating')} />
           </Field>
@@ -122,6 +131,8 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
           <textarea id="gear-notes" rows={4} className="block w-full rounded-md border border-rule bg-paper px-3 py-2" {...form.register('notes')} />
         </Field>
       </fieldset>
+
+      <AlsoServesFieldset category={category} register={form.register} errorAt={errorAt} />
 
       <fieldset className="space-y-4">
         <legend className="text-lg font-bold">Claimed specs</legend>
@@ -138,11 +149,11 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
             ))}
           </select>
         </Field>
-        {claimableSpecs(category).map((spec) => (
+        {specsShown.map((spec) => (
           <div key={`${category}-${spec.key}`} className="grid gap-2 sm:grid-cols-[3fr_1fr]">
             <QuantityField
               id={`spec-${spec.key}`}
-              label={`${spec.label}${spec.required ? ' (required)' : ''}`}
+              label={`${spec.label}${spec.role !== category ? ` (as ${CATEGORY_DEFS[spec.role].label.toLowerCase()})` : ''}${roleDefs.some((d) => d.specs.some((x) => x.key === spec.key && x.required)) ? ' (required)' : ''}`}
               name={`specs.${spec.key}.value` as FieldPath<GearFormValues>}
               quantity={spec.quantity}
               placeholder={spec.example}
@@ -167,6 +178,8 @@ export function GearForm({ mode, slug, defaults, isPublic = false }: { mode: 'cr
       {def.modes ? <ModesFieldset style={def.modes} examples={def.modeExamples} control={form.control} register={form.register} errorAt={errorAt} /> : null}
 
       <PortsFieldset control={form.control} register={form.register} errorAt={errorAt} />
+
+      <FeaturesFieldset roles={roles} register={form.register} errorAt={errorAt} />
 
       {isPublic ? (
         <Field id="gear-change-note" label="What changed and why" hint="Shown with the date in the item’s “figures updated” note once an editor approves the change." errors={errorAt('changeNote')}>

@@ -3,9 +3,11 @@
  * schema's input. Pure: used by the client form and by server pages that prefill it.
  */
 import { SPECS, type Category, type SpecKey } from '@/lib/measure';
-import { CATEGORY_DEFS, claimableSpecs, MODE_SPEC_KEYS } from './categories';
+import { CATEGORY_DEFS, MODE_SPEC_KEYS } from './categories';
 import { formatForInput } from './format';
 import { formatPdProfiles } from './ports';
+import { FEATURE_DEFS, isFeatureName, statedChecklist } from './features';
+import { cleanAlsoServes, roleSpecs, rolesOf } from './roles';
 
 /** One port row of the form, as typed text. `pdProfiles` is text such as "5 V 3 A · 9 V 3 A". */
 export type PortFormRow = {
@@ -53,17 +55,31 @@ export type GearFormValues = {
   specs: Record<string, { value: string; source: string }>;
   modes: { name: string; luminousFlux: string; runtime: string; powerDraw: string }[];
   ports: PortFormRow[];
+  /** Other categories the item also serves as (checkbox values). */
+  alsoServesAs: string[];
+  /** Checklist answers: present is 'yes', 'no' or '' (not stated); detail only for features that take one. */
+  features: Record<string, { present: string; detail: string }>;
   changeNote: string;
 };
+
+/** The roles the form currently describes: the category, then the ticked also-serves categories. */
+export function formRoles(values: Pick<GearFormValues, 'category' | 'alsoServesAs'>): Category[] {
+  const category = values.category as Category;
+  if (!CATEGORY_DEFS[category]) return [];
+  return rolesOf(category, cleanAlsoServes(category, values.alsoServesAs ?? []));
+}
 
 
 /** Keeps only what the chosen category records, so switching category leaves no stray fields. */
 export function clean(values: GearFormValues, withCategory: boolean): Record<string, unknown> {
   const category = values.category as Category;
   const def = CATEGORY_DEFS[category];
+  const roles = formRoles(values);
+  const roleDefs = roles.map((r) => CATEGORY_DEFS[r]);
   const specs: Record<string, { value: string; source?: string }> = {};
   if (def) {
-    for (const s of claimableSpecs(category)) {
+    // Specs of every role (a lantern serving as a bank records the bank's figures too).
+    for (const s of roleSpecs(roles).filter((x) => x.basis !== 'measured-only')) {
       const entry = values.specs?.[s.key];
       if (entry && entry.value.trim() !== '') specs[s.key] = entry.source ? { value: entry.value, source: entry.source } : { value: entry.value };
     }
@@ -82,15 +98,29 @@ export function clean(values: GearFormValues, withCategory: boolean): Record<str
     price: { amount: values.price.amount, currency: values.price.currency },
     pricePaidOn: values.pricePaidOn,
     notes: values.notes,
-    chemistry: def?.chemistry.shown ? values.chemistry : '',
-    waterRating: def?.waterRating ? values.waterRating : '',
+    chemistry: roleDefs.some((d) => d.chemistry.shown) ? values.chemistry : '',
+    waterRating: roleDefs.some((d) => d.waterRating) ? values.waterRating : '',
     claimSource: values.claimSource,
     specs,
     modes,
     ports: (values.ports ?? []).map(cleanPort),
+    alsoServesAs: roles.slice(1),
+    features: cleanFeatures(values, roles),
     changeNote: values.changeNote,
   };
   if (withCategory) out.category = values.category;
+  return out;
+}
+
+/** Stated answers on the current checklist only (switching roles leaves no stray answers); a detail only where taken. */
+function cleanFeatures(values: Pick<GearFormValues, 'features'>, roles: readonly Category[]): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const name of statedChecklist(roles)) {
+    const answer = values.features?.[name];
+    if (!answer || answer.present === '') continue;
+    const detail = answer.detail?.trim() ?? '';
+    out[name] = FEATURE_DEFS[name].detail && answer.present === 'yes' && detail ? { present: answer.present, detail } : answer.present;
+  }
   return out;
 }
 
@@ -110,6 +140,8 @@ export function emptyGearValues(category: Category = 'light'): GearFormValues {
     specs: {},
     modes: [],
     ports: [],
+    alsoServesAs: [],
+    features: {},
     changeNote: '',
   };
 }
@@ -150,6 +182,12 @@ export function toFormValues(input: Record<string, unknown>, category: Category)
       source: p.source === input.claimSource ? '' : text(p.source),
     };
   });
+  const features: GearFormValues['features'] = {};
+  for (const [name, answer] of Object.entries((input.features ?? {}) as Record<string, boolean | { present: boolean; detail?: string }>)) {
+    if (!isFeatureName(name)) continue;
+    const present = typeof answer === 'boolean' ? answer : answer.present;
+    features[name] = { present: present ? 'yes' : 'no', detail: typeof answer === 'object' ? (answer.detail ?? '') : '' };
+  }
   const price = input.price as { amount: string; currency: string } | null;
   return {
     ...base,
@@ -166,5 +204,7 @@ export function toFormValues(input: Record<string, unknown>, category: Category)
     specs,
     modes,
     ports,
+    alsoServesAs: Array.isArray(input.alsoServesAs) ? (input.alsoServesAs as string[]) : [],
+    features,
   };
 }

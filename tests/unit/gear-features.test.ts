@@ -209,3 +209,49 @@ describe('roles', () => {
     expect(roleNoun('light')).toBe('a light');
   });
 });
+
+describe('form values', async () => {
+  const { clean, emptyGearValues, formRoles, toFormValues } = await import('@/lib/gear/form-values');
+
+  it('keeps the specs of every ticked role and only answers on the current checklist', () => {
+    const values = {
+      ...emptyGearValues('light'),
+      name: 'Form Lantern',
+      maker: 'Glowmere',
+      alsoServesAs: ['power-bank', 'light'],
+      specs: { mass: { value: '400 g', source: '' }, luminousFlux: { value: '300 lm', source: '' }, ratedEnergy: { value: '18.5 Wh', source: '' }, rechargePower: { value: '10 W', source: '' }, ratedPower: { value: '5 W', source: '' } },
+      features: {
+        'red-mode': { present: 'yes', detail: '' },
+        magnet: { present: '', detail: '' },
+        'hanging-hook': { present: 'yes', detail: 'steel' },
+        'output-12v': { present: 'no', detail: 'ignored' },
+        kickstand: { present: 'yes', detail: '' },
+      },
+    };
+    expect(formRoles(values)).toEqual(['light', 'power-bank']);
+    const out = clean(values, true) as { alsoServesAs: string[]; specs: Record<string, unknown>; features: Record<string, unknown> };
+    expect(out.alsoServesAs).toEqual(['power-bank']);
+    // rechargePower is a bank spec (kept); ratedPower belongs to panels (dropped).
+    expect(Object.keys(out.specs).sort()).toEqual(['luminousFlux', 'mass', 'ratedEnergy', 'rechargePower']);
+    expect(out.features).toEqual({ 'red-mode': 'yes', 'hanging-hook': { present: 'yes', detail: 'steel' }, 'output-12v': 'no' });
+    const parsed = gearInputSchema.safeParse({ ...out, chemistry: 'li-ion' });
+    expect(parsed.success).toBe(true);
+  });
+
+  it('unticking the role drops its specs and answers, so nothing stray is refused', () => {
+    const values = { ...emptyGearValues('light'), alsoServesAs: [], features: { 'output-12v': { present: 'yes', detail: '' } }, specs: { rechargePower: { value: '10 W', source: '' } } };
+    const out = clean(values, true) as { specs: Record<string, unknown>; features: Record<string, unknown> };
+    expect(out.specs).toEqual({});
+    expect(out.features).toEqual({});
+  });
+
+  it('prefills roles and answers from the working copy input', () => {
+    const values = toFormValues({ name: 'x', maker: 'y', alsoServesAs: ['power-bank'], features: { 'red-mode': true, magnet: false, 'hanging-hook': { present: true, detail: 'steel' }, bogus: true } }, 'light');
+    expect(values.alsoServesAs).toEqual(['power-bank']);
+    expect(values.features).toEqual({
+      'red-mode': { present: 'yes', detail: '' },
+      magnet: { present: 'no', detail: '' },
+      'hanging-hook': { present: 'yes', detail: 'steel' },
+    });
+  });
+});
