@@ -18,10 +18,8 @@ import {
   fieldTestItems,
   fieldTests,
   fieldTestStateEvents,
-  gearFigureNotes,
   gearItems,
   readings,
-  specChanges,
   specs,
   trials,
   type FieldTest,
@@ -31,6 +29,8 @@ import {
   type TrialSeriesMeta,
 } from './schema';
 import { findVisibleGear, recomputeStoredRatios, type Actor } from './gear';
+import { currentMeasuredSource, writeMeasuredSpec } from './measured-specs';
+import { applyRadioNoiseSpecs, radioNoiseReadinessProblem, RADIO_NOISE_KIND } from './radio-noise';
 import { findEditableFieldTest, findVisibleFieldTest, type Q, type Tx } from './field-tests-access';
 import { hasRole } from '@/lib/auth/roles';
 import { AppError } from '@/lib/http/errors';
@@ -39,8 +39,6 @@ import { analyzeFieldTest, measuredSpecs, type FieldTestAnalysis, type ItemConte
 import { KINDS, type FieldTestKind } from '@/lib/field-tests/kinds';
 import { kindCategoryProblem } from '@/lib/field-tests/kind-categories';
 import { fieldTestInputSchema, parseTestDateTime, typedKeysFor, typedTrialSchema, type FieldTestInput } from '@/lib/field-tests/schemas';
-import { formatSpec } from '@/lib/gear/format';
-import { SPECS, type SpecKey } from '@/lib/measure';
 import { decodeSeries, encodeSeries, type ReadingsMeta, type Sample } from '@/lib/readings';
 import { decide, type WorkflowAction } from '@/lib/workflow/transitions';
 import type { z } from 'zod';
@@ -386,7 +384,12 @@ export function transitionFieldTest(db: Db, actor: Actor, id: string, action: Fi
       }
       const to = decision.to as RecordState;
       let measured = 0;
-      if (action === 'submit' || action === 'approve') {
+      if ((action === 'submit' || action === 'approve') && test.kind === RADIO_NOISE_KIND) {
+        // Band readings instead of trials (db/radio-noise.ts).
+        const problem = radioNoiseReadinessProblem(tx, test, items);
+        if (problem) throw new AppError('invalid', problem);
+        if (action === 'approve') measured = applyRadioNoiseSpecs(tx, actor, test, items, now);
+      } else if (action === 'submit' || action === 'approve') {
         const list = trialsOfTest(tx, test.id);
         const { analysis } = analyzeStoredTest(tx, test, items, list);
         const problem = readinessProblem(test, items, list, analysis);
@@ -404,16 +407,6 @@ export function transitionFieldTest(db: Db, actor: Actor, id: string, action: Fi
   );
 }
 
-/** The approved test of the item that produced its current measured figure for `key`, if any. */
-function currentSource(tx: Tx, itemId: string, key: SpecKey) {
-  return tx
-    .select({ id: specs.id, value: specs.value, fieldTestId: specs.fieldTestId, testedAt: fieldTests.testedAt, approvedAt: fieldTests.approvedAt })
-    .from(specs)
-    .leftJoin(fieldTests, eq(fieldTests.id, specs.fieldTestId))
-    .where(and(eq(specs.gearItemId, itemId), eq(specs.key, key), eq(specs.mode, ''), eq(specs.basis, 'measured')))
-    .get();
-}
-
 /**
  * Writes the measured specs of an approved test: mean ± sd (n) per item and spec key, linked to the test.
  * A figure from a test carried out later (by test date) is kept: the latest test of a kind wins, and
@@ -424,27 +417,9 @@ function applyMeasuredSpecs(tx: Tx, actor: Actor, test: FieldTest, items: readon
   let written = 0;
   const touched = new Set<string>();
   for (const m of measuredSpecs(analysis)) {
-    const current = currentSource(tx, m.itemId, m.key);
+    const current = currentMeasuredSource(tx, m.itemId, m.key);
     if (current?.testedAt && current.fieldTestId !== test.id && current.approvedAt && current.testedAt.getTime() > test.testedAt.getTime()) continue;
-    tx.insert(specs)
-      .values({ id: randomUUID(), gearItemId: m.itemId, key: m.key, mode: '', basis: 'measured', value: m.value, sd: m.sd, n: m.n, fieldTestId: test.id, updatedAt: at })
-      .onConflictDoUpdate({ target: [specs.gearItemId, specs.key, specs.mode, specs.basis], set: { value: m.value, sd: m.sd, n: m.n, fieldTestId: test.id, updatedAt: at } })
-      .run();
-    tx.insert(specChanges)
-      .values({ gearItemId: m.itemId, key: m.key, mode: '', basis: 'measured', oldValue: current?.value ?? null, newValue: m.value, context: 'approval', changedById: actor.id, createdAt: at })
-      .run();
-    const item = items.find((i) => i.id === m.itemId);
-    if (item?.approvedAt && current && formatSpec(m.key, current.value) !== formatSpec(m.key, m.value)) {
-      tx.insert(gearFigureNotes)
-        .values({
-          gearItemId: m.itemId,
-          note: `From the field test of ${test.testedAt.toISOString().slice(0, 10)}.`,
-          summary: `${SPECS[m.key].label}, measured: ${formatSpec(m.key, current.value)} → ${formatSpec(m.key, m.value)}`,
-          approvedById: actor.id,
-          createdAt: at,
-        })
-        .run();
-    }
+    writeMeasuredSpec(tx, actor, items.find((i) => i.id === m.itemId), { ...m, fieldTestId: test.id, testedAt: test.testedAt }, current, at);
     touched.add(m.itemId);
     written += 1;
   }

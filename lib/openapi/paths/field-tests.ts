@@ -3,6 +3,8 @@ import { RECORD_STATES } from '@/db/schema';
 import { FIELD_TEST_KINDS, SKIES } from '@/lib/field-tests/kinds';
 import { csvUploadRequestSchema, fieldTestInputSchema, fieldTestTransitionSchema, typedReadingsUploadSchema, typedTrialSchema } from '@/lib/field-tests/schemas';
 import { columnSelectionSchema, readingsParseRequestSchema } from '@/lib/readings/schemas';
+import { radioNoiseReadingsInputSchema } from '@/lib/field-tests/radio-noise';
+import { radioNoiseViewSchema } from './radio-noise';
 import { errorResponses, OPTIONALLY_SIGNED_IN, SIGNED_IN, type OpenAPIRegistry } from '../registry';
 
 const TAG = 'Field tests';
@@ -196,6 +198,36 @@ export function registerFieldTests(registry: OpenAPIRegistry): void {
     responses: {
       204: { description: 'Deleted.' },
       ...errorResponses(401, 403, 404, 409, 503),
+    },
+  });
+
+  registry.registerPath({
+    method: 'get',
+    path: '/api/v1/field-tests/{id}/radio-noise',
+    tags: [TAG],
+    summary: 'Read a radio-noise check’s band readings',
+    description:
+      'Per band: frequency, S-meter range (30 MHz and below: `below-30mhz`), mode, bandwidth, antenna, distance, the baseline and with-item readings as entered and in dBm (IARU Region 1 Rec. R.1: S9 = −73 dBm below 30 MHz, −93 dBm above, 6 dB per S-unit), the rise in dB and its verdict; and the radio-quiet summary per item. Empty for other kinds. Unapproved tests only for the author, the items’ owners and editors.',
+    security: OPTIONALLY_SIGNED_IN,
+    request: { params: testParams },
+    responses: {
+      200: { description: 'The band readings.', content: { 'application/json': { schema: radioNoiseViewSchema } } },
+      ...errorResponses(401, 404),
+    },
+  });
+
+  registry.registerPath({
+    method: 'put',
+    path: '/api/v1/field-tests/{id}/radio-noise',
+    tags: [TAG],
+    summary: 'Replace a radio-noise check’s band readings',
+    description:
+      'Every band reading of the test at once (what is stored is replaced). Each reading is `{ "scale": "s-meter", "sUnits": 0–9, "dbOverS9": 0–60 (only at S9) }` or `{ "scale": "dbm", "dbm": −174–0 }`. Only the author, only while the test is a draft or sent back (409 after submitting), only for a radio-noise test (422).',
+    security: SIGNED_IN,
+    request: { params: testParams, body: { required: true, content: { 'application/json': { schema: radioNoiseReadingsInputSchema } } } },
+    responses: {
+      200: { description: 'Saved; the stored readings with their dBm, rise and verdict.', content: { 'application/json': { schema: radioNoiseViewSchema } } },
+      ...errorResponses(400, 401, 403, 404, 409, 413, 415, 422, 503),
     },
   });
 
