@@ -108,9 +108,9 @@ export function formatMeterReading(reading: MeterReading): string {
 
 /** A dB figure with at most one decimal and a true minus sign. */
 export function formatDb(value: number): string {
-  const rounded = Math.round(value * 10) / 10;
-  const text = String(Math.abs(rounded));
-  return rounded < 0 ? `−${text}` : text;
+  // Half away from zero on both sides, so −118.25 reads −118.3 like 118.25 reads 118.3.
+  const magnitude = Math.round(Math.abs(value) * 10) / 10;
+  return value < 0 && magnitude !== 0 ? `−${magnitude}` : String(magnitude);
 }
 
 /** A band's derived figures: range from the frequency, both levels in dBm and the rise. */
