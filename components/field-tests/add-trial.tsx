@@ -6,6 +6,7 @@ import { CsvPreview, type CsvReadyMeta } from '@/components/readings/csv-preview
 import { Button, FormMessage, TextInput } from '@/components/ui/form';
 import { analyzeTrial } from '@/lib/field-tests/analysis';
 import { KINDS, type FieldTestKind } from '@/lib/field-tests/kinds';
+import { PORT_OUTPUT_LABELS } from '@/lib/field-tests/port-output';
 import { typedKeysFor } from '@/lib/field-tests/schemas';
 import { SPECS, isSpecKey } from '@/lib/measure';
 import { typedReadings } from '@/lib/readings/typed';
@@ -21,7 +22,7 @@ export interface TrialItemOption {
   ratedEnergyWh: number | null;
 }
 
-const EXTRA_LABELS: Record<string, [string, string]> = { illuminanceLx: ['Illuminance on the beam axis', 'lx'], distanceM: ['Distance from the lens', 'm'] };
+const EXTRA_LABELS: Record<string, [string, string]> = { illuminanceLx: ['Illuminance on the beam axis', 'lx'], distanceM: ['Distance from the lens', 'm'], ...PORT_OUTPUT_LABELS };
 
 function ErrorList({ error }: { error: ApiError | null }) {
   if (!error) return null;

@@ -17,6 +17,7 @@ import {
 } from '@/lib/measure';
 import type { Sample } from '@/lib/readings/types';
 import { KINDS, type FieldTestKind } from './kinds';
+import { portOutputFigures, portOutputNotes, portOutputReading, type PortFigureKey } from './port-output';
 
 /*
  * Field-test analysis: maps a kind and its trials (readings series or typed values) to figures
@@ -42,7 +43,7 @@ export interface ItemContext {
   ratedW?: number | null;
 }
 
-export type FigureKey = SpecKey | 'deliveredVsRated' | 'referenceOutput' | 'meanPower' | 'peakPower' | 'shareOfRating';
+export type FigureKey = SpecKey | 'deliveredVsRated' | 'referenceOutput' | 'meanPower' | 'peakPower' | 'shareOfRating' | PortFigureKey;
 
 /** One result figure of a trial. `specKey` is set when the figure becomes a measured spec of the item. */
 export interface Figure {
@@ -225,7 +226,10 @@ export function analyzeTrial(kind: FieldTestKind, trial: TrialInput, ctx: ItemCo
     const hasSeries = (trial.samples?.length ?? 0) > 0;
     if (hasSeries && KINDS[kind].input !== 'typed') body = analyzeSeries(kind, trial.samples!, ctx);
     else if (trial.typed && Object.keys(trial.typed).length > 0) {
-      body = kind === 'light-output' ? analyzeLightOutput(trial.typed) : typedFigures(kind, trial.typed);
+      if (kind === 'port-output') {
+        const r = portOutputReading(trial.typed);
+        body = { figures: portOutputFigures(r), methods: [METHODS.typed], chart: null, notes: portOutputNotes(r) };
+      } else body = kind === 'light-output' ? analyzeLightOutput(trial.typed) : typedFigures(kind, trial.typed);
       if (kind === 'energy-delivered') {
         const wh = body.figures.find((f) => f.key === 'deliveredEnergy')?.value;
         if (wh !== undefined && positive(ctx.ratedEnergyWh)) body.figures.push({ key: 'deliveredVsRated', label: 'Delivered ÷ rated', value: wh / ctx.ratedEnergyWh, unit: '' });

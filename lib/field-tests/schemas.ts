@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { isSpecKey } from '@/lib/measure';
 import { columnSelectionSchema, readingsParseRequestSchema, typedReadingsSchema } from '@/lib/readings/schemas';
 import { FIELD_TEST_KINDS, KINDS, SKIES, type FieldTestKind } from './kinds';
+import { PORT_OUTPUT_KEYS } from './port-output';
 
 /*
  * One zod schema per field-test input, shared by the logbook forms, the data layer and the API routes.
@@ -64,6 +65,7 @@ export const LIGHT_OUTPUT_EXTRA_KEYS = ['illuminanceLx', 'distanceM'] as const;
 /** Keys a typed trial of this kind may carry (every spec key for `other`). */
 export function typedKeysFor(kind: FieldTestKind): string[] | null {
   if (kind === 'other') return null;
+  if (kind === 'port-output') return [...PORT_OUTPUT_KEYS];
   return [...KINDS[kind].specKeys, ...(kind === 'light-output' ? LIGHT_OUTPUT_EXTRA_KEYS : [])];
 }
 
@@ -79,7 +81,7 @@ export const typedTrialSchema = z.object({
   typedValues: z
     .record(z.string().max(40), z.number('Give a number.').finite('Give a finite number.').min(0, 'Give a number ≥ 0.'))
     .refine((r) => Object.keys(r).length > 0 && Object.keys(r).length <= 12, 'Give between 1 and 12 values.')
-    .refine((r) => Object.keys(r).every((k) => isSpecKey(k) || (LIGHT_OUTPUT_EXTRA_KEYS as readonly string[]).includes(k)), 'Unknown figure.'),
+    .refine((r) => Object.keys(r).every((k) => isSpecKey(k) || (LIGHT_OUTPUT_EXTRA_KEYS as readonly string[]).includes(k) || (PORT_OUTPUT_KEYS as readonly string[]).includes(k)), 'Unknown figure.'),
 });
 export type TypedTrialInput = z.infer<typeof typedTrialSchema>;
 
