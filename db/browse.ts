@@ -16,6 +16,8 @@ import { and, asc, eq, inArray } from 'drizzle-orm';
 import { sql, type SQL } from 'drizzle-orm';
 import type { Db } from './connection';
 import { radioQuietCondition } from './browse-radio-quiet';
+import { categoryFacetQuery, featureConditions, servesAsCondition } from './browse-roles';
+import { rolesAndFeaturesOf } from './gear-roles';
 import { livePortsOf } from './gear-ports';
 import { gearItems, gearRatios, photos, specs, type GearItem, type Role } from './schema';
 import type { Figure, GearListResponse, GearSummary } from '@/lib/browse/contract';
@@ -86,7 +88,7 @@ interface Leave {
 /** Every filter of the query as SQL conditions on `g`, optionally leaving some out (facets, exclusion count). */
 function conditions(query: GearListQuery, caller: Caller, leave: Leave = {}): SQL {
   const parts: SQL[] = [visibleTo(caller)];
-  if (query.category && !leave.category) parts.push(sql`g.category = ${query.category}`);
+  if (query.category && !leave.category) parts.push(servesAsCondition(query.category));
   if (query.kind) parts.push(sql`g.kind = ${query.kind}`);
   if (query.q) {
     const pattern = containsPattern(query.q);
@@ -94,6 +96,7 @@ function conditions(query: GearListQuery, caller: Caller, leave: Leave = {}): SQ
   }
   if (query.reviewedOnly) parts.push(HAS_PUBLISHED_REVIEW);
   if (query.radioQuiet) parts.push(radioQuietCondition(query.radioQuiet));
+  parts.push(...featureConditions(query.features ?? []));
   if (usesMoney(query) && !leave.currency) parts.push(sql`(g.price_currency IS NULL OR g.price_currency = ${query.currency!})`);
   for (const range of query.ranges) {
     if (leave.moneyRanges && isMoneyKey(range.key)) continue;
@@ -135,6 +138,7 @@ function summaries(db: Db, items: GearItem[], options: SummaryOptions): GearSumm
       .map((r) => r.id),
   );
   const figure = (f: Figure): Figure => (options.imperial ? withImperial(f) : f);
+  const roles = rolesAndFeaturesOf(db, items);
 
   return items.map((item) => {
     const itemSpecs: Record<string, Figure> = {};
@@ -171,6 +175,7 @@ function summaries(db: Db, items: GearItem[], options: SummaryOptions): GearSumm
       ratios,
       sortValue: options.sortValues?.get(item.id) ?? null,
       reviewed: reviewed.has(item.id),
+      ...roles.get(item.id)!,
     };
     if (options.caller && item.ownerId === options.caller.id) summary.status = item.status;
     return summary;
@@ -216,9 +221,8 @@ export function listGear(db: Db, query: GearListQuery, caller: Caller): GearList
   const ordered = page.map((r) => byId.get(r.id)!);
 
   const total = db.get<{ n: number }>(sql`SELECT count(*) AS n FROM gear_items g WHERE ${where}`)?.n ?? 0;
-  const facetRows = db.all<{ category: string; n: number }>(
-    sql`SELECT g.category AS category, count(*) AS n FROM gear_items g WHERE ${conditions(query, caller, { category: true })} GROUP BY g.category`,
-  );
+  // An item counts under its primary category and each category it also serves as.
+  const facetRows = db.all<{ category: string; n: number }>(categoryFacetQuery(conditions(query, caller, { category: true })));
   const facetCount = new Map(facetRows.map((r) => [r.category, r.n]));
   const excludedOtherCurrency = usesMoney(query)
     ? (db.get<{ n: number }>(

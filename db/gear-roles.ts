@@ -8,7 +8,7 @@ import { and, asc, eq, inArray, isNotNull } from 'drizzle-orm';
 import type { Db } from './connection';
 import { gearFeatures, gearItems, type GearItem } from './schema';
 import type { Category } from '@/lib/measure';
-import { isFeatureName, type FeatureClaim } from '@/lib/gear/features';
+import { checklistLines, isFeatureName, type ChecklistLine, type FeatureClaim } from '@/lib/gear/features';
 import { cleanAlsoServes, rolesOf } from '@/lib/gear/roles';
 
 type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
@@ -83,4 +83,29 @@ export function featuresOfGear(db: Q, gearItemIds: readonly string[]): Record<st
     }
   }
   return out;
+}
+
+/** An item's roles and checklist as the public API gives them (lib/browse/contract.ts GearSummary). */
+export interface RolesAndFeaturesView {
+  alsoServesAs: Category[];
+  features: ChecklistLine[];
+}
+
+/**
+ * Also-serves lists and checklist lines of the given items from their stored rows (the approved ones of a
+ * public item; a caller's own never-approved item shows its live answers), keyed by item id.
+ */
+export function rolesAndFeaturesOf(db: Q, items: readonly Pick<GearItem, 'id' | 'category' | 'alsoServesAs' | 'waterRating'>[]): Map<string, RolesAndFeaturesView> {
+  const claims = new Map<string, FeatureClaim[]>(items.map((i) => [i.id, []]));
+  const ids = [...claims.keys()];
+  for (let i = 0; i < ids.length; i += 500) {
+    const rows = db.select().from(gearFeatures).where(inArray(gearFeatures.gearItemId, ids.slice(i, i + 500))).orderBy(asc(gearFeatures.name)).all();
+    for (const r of rows) {
+      const claim = rowToClaim(r);
+      if (claim) claims.get(r.gearItemId)!.push(claim);
+    }
+  }
+  return new Map(
+    items.map((item) => [item.id, { alsoServesAs: alsoServesAsOf(item), features: checklistLines(rolesOfItem(item), claims.get(item.id) ?? [], item.waterRating) }]),
+  );
 }

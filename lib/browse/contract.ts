@@ -42,6 +42,10 @@ export interface GearSummary {
   status?: string;
   /** Claimed ports (lib/measure `Port`, V/A/W), approved ones for a public item; only in `GET /api/v1/gear/{slug}`. */
   ports?: Port[];
+  /** Other categories the item also serves as (never its primary one); it is listed under each of them too. Present in every gear answer. */
+  alsoServesAs?: string[];
+  /** The feature checklist of all its roles: `has`, `has-not` or `not-stated`, with a detail such as a hook's material. */
+  features?: { name: string; label: string; state: 'has' | 'has-not' | 'not-stated'; detail: string | null }[];
 }
 
 export interface GearListResponse {

@@ -8,6 +8,8 @@ import { CATEGORIES, isCurrencyCode, SPEC_KEYS, SPECS, type SpecKey } from '@/li
 import { CATEGORY_DEFS, RATIO_LABELS } from '@/lib/gear/categories';
 import { AppError, type FieldErrors } from '@/lib/http/errors';
 import { radioQuietParam, type RadioQuietFilter } from './radio-quiet';
+import { featureFiltersOf, featureParamShape, unknownFeatureParamMessage } from './feature-filters';
+import type { FeatureName } from '@/lib/gear/features';
 
 /* ------------------------------------------------------------------------------------------------ */
 /* Keys one may filter and sort by                                                                  */
@@ -117,6 +119,7 @@ export const gearListQuerySchema = z
     cursor: cursorParam.optional(),
     units: unitsParam,
     radioQuiet: radioQuietParam,
+    ...featureParamShape,
     ...rangeShape,
   })
   .superRefine((query, ctx) => {
@@ -160,6 +163,8 @@ export interface GearListQuery {
   ranges: RangeFilter[];
   /** Measured worst noise rise under the quiet threshold in these S-meter ranges (lib/browse/radio-quiet.ts). */
   radioQuiet?: RadioQuietFilter;
+  /** `feature.<name>=true`: items stated to have each feature (lib/browse/feature-filters.ts). */
+  features: FeatureName[];
 }
 
 /** `GET /api/v1/gear/{slug}`. */
@@ -239,7 +244,7 @@ function parseParams<S extends z.ZodType>(schema: S, params: URLSearchParams): z
   const fields: FieldErrors = {};
   for (const issue of result.error.issues) {
     if (issue.code === 'unrecognized_keys') {
-      for (const key of issue.keys) (fields[key] ??= []).push('Is not a parameter of this route.');
+      for (const key of issue.keys) (fields[key] ??= []).push(unknownFeatureParamMessage(key) ?? 'Is not a parameter of this route.');
       continue;
     }
     const name = String(issue.path[0] ?? '_');
@@ -274,6 +279,7 @@ export function parseGearListQuery(params: URLSearchParams): GearListQuery {
     imperial: parsed.units === 'imperial',
     ranges,
     radioQuiet: parsed.radioQuiet,
+    features: featureFiltersOf(parsed),
   };
 }
 

@@ -39,7 +39,8 @@ vi.mock('@/lib/auth/guard', async () => {
 
 const { approveGear, createGear, getGearView, specHistory, submitGear, updateGear } = await import('@/db/gear');
 const { featuresOfGear, rolesOfItem, alsoServesAsOf, itemServesAs } = await import('@/db/gear-roles');
-const { PATCH } = await import('@/app/api/v1/gear/[slug]/route');
+const { GET: GET_ONE, PATCH } = await import('@/app/api/v1/gear/[slug]/route');
+const { GET: GET_LIST } = await import('@/app/api/v1/gear/route');
 const { POST } = await import('@/app/api/v1/gear/route');
 const { updateGearAction } = await import('@/lib/gear/actions');
 
@@ -213,5 +214,86 @@ describe('bad features and roles: 4xx naming the field, nothing stored', () => {
     const result = await updateGearAction(slug, { features: { kickstand: 'yes' } });
     expect(result.fields?.['features.kickstand']?.[0]).toMatch(/not on the checklist/);
     expect(counts()).toEqual(before);
+  });
+});
+
+describe('browse and the public API', () => {
+  /** Two lights (one serving as a bank), one bank, one panel; all approved. One pending edit, one draft. */
+  function catalog() {
+    const both = createGear(state.db, author, lantern({ name: 'Bank Lantern', alsoServesAs: ['power-bank'], features: { 'red-mode': true, 'hanging-hook': { present: true, detail: 'steel' } } }));
+    const red = createGear(state.db, author, lantern({ name: 'Red Lantern', waterRating: null, features: { 'red-mode': true, magnet: true } }));
+    const plain = createGear(state.db, author, lantern({ name: 'Plain Lantern', features: { 'red-mode': false } }));
+    const bank = createGear(state.db, author, { category: 'power-bank', name: 'Plain Bank', maker: 'Voltmoth', chemistry: 'li-ion', specs: { mass: { value: '300 g' }, ratedEnergy: { value: '37 Wh' } }, features: { 'pass-through-charging': true } });
+    const panel = createGear(state.db, author, { category: 'solar-panel', name: 'Plain Panel', maker: 'Brackenfold', specs: { mass: { value: '2 kg' }, ratedPower: { value: '40 W' } }, features: { kickstand: true } });
+    for (const x of [both, red, plain, bank, panel]) approve(x.slug);
+    // Pending after approval: the plain lantern claims a red mode and a bank role; readers must not see either yet.
+    updateGear(state.db, author, plain.slug, { alsoServesAs: ['power-bank'], features: { 'red-mode': true } });
+    // A never-approved draft with a red mode: hidden from guests.
+    const draft = createGear(state.db, author, lantern({ name: 'Draft Lantern', features: { 'red-mode': true } }));
+    return { both, red, plain, bank, panel, draft };
+  }
+
+  async function list(query: string) {
+    const res = await GET_LIST(new Request(`${BASE}/api/v1/gear${query}`));
+    return { status: res.status, body: (await res.json()) as { items: { slug: string; alsoServesAs: string[]; features: { name: string; state: string; detail: string | null }[] }[]; total: number; facets: { categories: { id: string; count: number }[] }; error?: { message: string; fields: Record<string, string[]> } } };
+  }
+
+  it('category=power-bank includes items that also serve as a bank; facets count them under both', async () => {
+    const c = catalog();
+    const banks = await list('?category=power-bank');
+    expect(banks.status).toBe(200);
+    // The approved bank and the lantern approved as a bank; not the plain lantern whose bank role is still pending.
+    expect(banks.body.items.map((i) => i.slug).sort()).toEqual([c.both.slug, c.bank.slug].sort());
+    expect(banks.body.items.find((i) => i.slug === c.both.slug)!.alsoServesAs).toEqual(['power-bank']);
+    const facets = Object.fromEntries(banks.body.facets.categories.map((f) => [f.id, f.count]));
+    // Lights: 3 approved lanterns; banks: 1 bank + 1 lantern serving as one; panels: 1.
+    expect(facets).toMatchObject({ light: 3, 'power-bank': 2, 'solar-panel': 1, radio: 0 });
+    expect((await list('?category=light')).body.total).toBe(3);
+  });
+
+  it('feature.red-mode=true keeps only items stated to have it, by approved answers only', async () => {
+    const c = catalog();
+    const red = await list('?category=light&feature.red-mode=true');
+    expect(red.status).toBe(200);
+    expect(red.body.items.map((i) => i.slug).sort()).toEqual([c.both.slug, c.red.slug].sort());
+    const both = await list('?feature.red-mode=true&feature.magnet=true');
+    expect(both.body.items.map((i) => i.slug)).toEqual([c.red.slug]);
+    // IP rating comes from the water rating: the red lantern has none.
+    const ip = await list('?category=light&feature.ip-rating=true');
+    expect(ip.body.items.map((i) => i.slug).sort()).toEqual([c.both.slug, c.plain.slug].sort());
+    // Facets follow the feature filter too (every filter but category).
+    const facets = Object.fromEntries(red.body.facets.categories.map((f) => [f.id, f.count]));
+    expect(facets).toMatchObject({ light: 2, 'power-bank': 1 });
+    expect((await list('?feature.kickstand=true')).body.items.map((i) => i.slug)).toEqual([c.panel.slug]);
+  });
+
+  it('refuses unknown feature names and values other than true with a 400 naming them', async () => {
+    const unknown = await list('?feature.laser-sight=true');
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error!.fields['feature.laser-sight']![0]).toMatch(/not a feature.*red-mode/);
+    const value = await list('?feature.red-mode=yes');
+    expect(value.status).toBe(400);
+    expect(value.body.error!.fields['feature.red-mode']![0]).toMatch(/only value is `true`/);
+    const twice = await list('?feature.red-mode=true&feature.red-mode=true');
+    expect(twice.status).toBe(400);
+  });
+
+  it('GET /api/v1/gear/{slug} gives the approved roles and checklist lines', async () => {
+    const c = catalog();
+    const res = await GET_ONE(new Request(`${BASE}/api/v1/gear/${c.both.slug}`), params(c.both.slug));
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { alsoServesAs: string[]; features: { name: string; state: string; detail: string | null }[] };
+    expect(body.alsoServesAs).toEqual(['power-bank']);
+    const by = Object.fromEntries(body.features.map((f) => [f.name, f]));
+    expect(by['red-mode']).toMatchObject({ state: 'has', detail: null });
+    expect(by['hanging-hook']).toMatchObject({ state: 'has', detail: 'steel' });
+    expect(by['magnet']!.state).toBe('not-stated');
+    expect(by['ip-rating']).toMatchObject({ state: 'has', detail: 'IPX4' });
+    // The bank's checklist joins the light's.
+    expect(by['output-12v']!.state).toBe('not-stated');
+
+    const plain = (await (await GET_ONE(new Request(`${BASE}/api/v1/gear/${c.plain.slug}`), params(c.plain.slug))).json()) as typeof body;
+    expect(plain.alsoServesAs).toEqual([]);
+    expect(plain.features.find((f) => f.name === 'red-mode')!.state).toBe('has-not');
   });
 });

@@ -19,7 +19,7 @@ function fieldsOf(run: () => unknown): Record<string, string[]> {
 
 describe('GET /api/v1/gear query', () => {
   it('has defaults: 24 per page, slug order ascending, metric, no filters', () => {
-    expect(parse('')).toEqual({ measuredOnly: false, reviewedOnly: false, order: 'asc', limit: 24, imperial: false, ranges: [] });
+    expect(parse('')).toEqual({ measuredOnly: false, reviewedOnly: false, order: 'asc', limit: 24, imperial: false, ranges: [], features: [] });
   });
 
   it('orders better values first by default, following lib/measure directions', () => {

@@ -10,6 +10,7 @@ import {
 } from '@/lib/browse/query';
 import { PORT_DIRECTIONS, PORT_KINDS } from '@/lib/measure';
 import { errorResponses, OPTIONALLY_SIGNED_IN, slugParam, type OpenAPIRegistry } from '../registry';
+import { gearRolesAndFeaturesShape } from './gear-features';
 
 const TAG = 'Browse and reviews';
 
@@ -69,6 +70,7 @@ const gearSummary = z
       .array(port)
       .optional()
       .meta({ description: 'Only in `GET /api/v1/gear/{slug}`: the claimed ports (approved ones for a public item), inputs and outputs, in the author’s order.' }),
+    ...gearRolesAndFeaturesShape,
   })
   .meta({ id: 'GearSummary' });
 
