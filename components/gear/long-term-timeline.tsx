@@ -35,7 +35,7 @@ export async function LongTermTimeline({ item, viewer }: { item: Pick<GearItem, 
       {notes.length === 0 ? (
         <p className="text-sm text-slate">No long-term notes are public yet. Reviewers who own or have tested this item add them as the months go by.</p>
       ) : (
-        <ol className="space-y-6 border-l-2 border-rule pl-5" aria-label="Long-term notes, oldest first">
+        <ol className="ml-1.5 space-y-6 border-l-2 border-rule pl-5" aria-label="Long-term notes, oldest first">
           {notes.map((n) => (
             <li key={n.id} className="relative" data-testid="long-term-note">
               <span aria-hidden="true" className="absolute top-1.5 -left-[1.72rem] h-3 w-3 rounded-full border-2 border-paper bg-lichen" />

@@ -172,6 +172,7 @@ const approvedItem = DEMO_GEAR.find((g) => g.status === 'approved')!.slug;
 const demoValues: Record<string, string> = {
   'gear/slug': approvedItem,
   'field-tests/id': DEMO_FIELD_TESTS.find((t) => t.status === 'approved')!.id,
+  'long-term-notes/id': 'demo-ltn-hearthglow-hook', // an approved demo note (db/seed/long-term-notes.ts)
   'trials/trialId': DEMO_FIELD_TESTS.find((t) => t.status === 'approved')!.trials[0]!.id,
   'kits/id': DEMO_KITS[0]!.id,
   'reviews/slug': DEMO_REVIEWS.find((r) => r.revisions.some((v) => v.state === 'published'))?.slug ?? 'no-such-review',
@@ -294,6 +295,15 @@ test.describe('as the demo reviewer (session, same origin)', () => {
     await call('POST', '/api/v1/field-tests/{id}/trials', { 'field-tests/id': massCheck.fieldTest.id }, { data: { item: created.item.slug, typedValues: { mass: 348.7 } } });
     await call('POST', '/api/v1/field-tests/{id}/transitions', values, { data: { action: 'submit' } });
 
+    // Long-term note on the new item (its owner may add one): added, read, changed, submitted.
+    const note = { notedOn: '2026-11-20', monthsInService: 1, kind: 'use', title: 'Contract note', body: 'Written by the API contract test.' };
+    const added = (await call('POST', '/api/v1/gear/{slug}/notes', values, { data: note })) as { note: { id: string } };
+    values['long-term-notes/id'] = added.note.id;
+    await call('GET', '/api/v1/gear/{slug}/notes', values);
+    await call('GET', '/api/v1/long-term-notes/{id}', values);
+    await call('PATCH', '/api/v1/long-term-notes/{id}', values, { data: { ...note, title: 'Contract note, changed' } });
+    await call('POST', '/api/v1/long-term-notes/{id}/transitions', values, { data: { action: 'submit' } });
+
     // Kits: create, list, read, change, duplicate, share, read shared (as a guest), revoke, delete.
     const kit = (await call('POST', '/api/v1/kits', {}, {
       data: { name: `Contract kit ${stamp}`, purpose: '', tripDays: 3, entries: [{ freeName: 'Headlamp', quantity: 2, freeMassG: 90, freeDrawW: 1.5, hoursPerDay: 3 }] },
@@ -316,7 +326,7 @@ test.describe('as the demo reviewer (session, same origin)', () => {
     await call('DELETE', '/api/v1/kits/{id}', values);
 
     // The round reached a success answer of every write it made.
-    for (const key of ['POST /api/v1/gear', 'PATCH /api/v1/gear/{slug}', 'POST /api/v1/field-tests/{id}/readings', 'POST /api/v1/field-tests/{id}/trials', 'POST /api/v1/kits/{id}/share']) {
+    for (const key of ['POST /api/v1/gear', 'PATCH /api/v1/gear/{slug}', 'POST /api/v1/gear/{slug}/notes', 'PATCH /api/v1/long-term-notes/{id}', 'POST /api/v1/long-term-notes/{id}/transitions', 'POST /api/v1/field-tests/{id}/readings', 'POST /api/v1/field-tests/{id}/trials', 'POST /api/v1/kits/{id}/share']) {
       expect([...(contract.statuses.get(key) ?? [])].some((s) => s.startsWith('2')), key).toBe(true);
     }
   });
