@@ -31,6 +31,7 @@ import {
 import { findVisibleGear, recomputeStoredRatios, type Actor } from './gear';
 import { currentMeasuredSource, writeMeasuredSpec } from './measured-specs';
 import { applyRadioNoiseSpecs, radioNoiseReadinessProblem, RADIO_NOISE_KIND } from './radio-noise';
+import { applyMeasuredPorts, assertPortOutputTrial, portOutputReadinessProblem, PORT_OUTPUT_KIND } from './measured-ports';
 import { findEditableFieldTest, findVisibleFieldTest, type Q, type Tx } from './field-tests-access';
 import { hasRole } from '@/lib/auth/roles';
 import { AppError } from '@/lib/http/errors';
@@ -197,6 +198,7 @@ export function addTypedTrial(db: Db, actor: Actor, testId: string, raw: unknown
       const wrong = Object.keys(data.typedValues).filter((k) => allowed !== null && !allowed.includes(k));
       if (wrong.length) throw new AppError('invalid', 'Some fields are not valid.', { fields: { typedValues: [`A ${KINDS[kind].label.toLowerCase()} test does not record ${wrong.join(', ')}.`] } });
       const item = itemOfTest(items, data.item);
+      if (kind === PORT_OUTPUT_KIND) assertPortOutputTrial(tx, item, data.typedValues);
       assertRoomForTrial(tx, test.id);
       const trialId = randomUUID();
       tx.insert(trials)
@@ -392,9 +394,9 @@ export function transitionFieldTest(db: Db, actor: Actor, id: string, action: Fi
       } else if (action === 'submit' || action === 'approve') {
         const list = trialsOfTest(tx, test.id);
         const { analysis } = analyzeStoredTest(tx, test, items, list);
-        const problem = readinessProblem(test, items, list, analysis);
+        const problem = readinessProblem(test, items, list, analysis) ?? (test.kind === PORT_OUTPUT_KIND ? portOutputReadinessProblem(tx, items, list) : null);
         if (problem) throw new AppError('invalid', problem);
-        if (action === 'approve') measured = applyMeasuredSpecs(tx, actor, test, items, analysis, now);
+        if (action === 'approve') measured = applyMeasuredSpecs(tx, actor, test, items, analysis, now) + (test.kind === PORT_OUTPUT_KIND ? applyMeasuredPorts(tx, test, analysis, now) : 0);
       }
       tx.update(fieldTests)
         .set({ status: to, updatedAt: now, ...(action === 'approve' && { approvedAt: now }) })

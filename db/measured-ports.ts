@@ -14,7 +14,7 @@ import { livePortsOf } from './gear-ports';
 import { fieldTests, gearPorts, type FieldTest, type GearItem, type Trial } from './schema';
 import { AppError } from '@/lib/http/errors';
 import type { FieldTestAnalysis } from '@/lib/field-tests/analysis';
-import { measuredPortFigures, portOutputMismatch, portOutputReading } from '@/lib/field-tests/port-output';
+import { measuredPortFigures, portOutputMismatch, portOutputReading, publicPorts, type PublicPort } from '@/lib/field-tests/port-output';
 import { MeasureError, PORT_KINDS, type PortDirection, type PortKind } from '@/lib/measure';
 
 export const PORT_OUTPUT_KIND = 'port-output';
@@ -133,4 +133,9 @@ export function measuredPortsOf(db: Q, itemId: string): MeasuredPort[] {
       watts: port.watts,
       fieldTest: port.fieldTestId && testedAt ? { id: port.fieldTestId, testedAt } : null,
     }));
+}
+
+/** The item's claimed ports (approved ones for a public item), each followed by its measured figure: for the public API. */
+export function publicPortsOf(db: Q, itemId: string): PublicPort[] {
+  return publicPorts(livePortsOf(db, itemId), measuredPortsOf(db, itemId));
 }

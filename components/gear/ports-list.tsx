@@ -1,3 +1,6 @@
+import Link from 'next/link';
+import type { MeasuredPort } from '@/db/measured-ports';
+import { measuredFor } from '@/lib/field-tests/port-output';
 import { CLAIM_SOURCE_LABELS } from '@/lib/gear/categories';
 import { formatPdProfiles, PORT_DIRECTION_LABELS, PORT_KIND_HINTS } from '@/lib/gear/ports';
 import type { PortClaim } from '@/lib/gear/schemas';
@@ -27,8 +30,29 @@ const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(
 
 const figure = (value: number | undefined, unit: string) => (value === undefined ? '—' : `${formatFigure(value)} ${unit}`);
 
-/** The item's ports as a table: direction, connector in words, V/A/W and the details a charging path needs. */
-export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
+/** A measured output beside the claim: "Measured 26.8 W (9.00 V × 2.98 A)", linked to its field test. */
+function MeasuredFigure({ m, index }: { m: MeasuredPort; index: number }) {
+  const figures = m.volts !== null && m.amps !== null ? ` (${formatFigure(m.volts)} V × ${formatFigure(m.amps)} A)` : '';
+  return (
+    <li data-testid={`port-row-${index}-measured`}>
+      <span className="font-semibold">Measured {m.watts !== null ? `${formatFigure(m.watts)} W` : ''}</span>
+      <span className="figure font-mono">{figures}</span>{' '}
+      {m.fieldTest ? (
+        <Link href={`/field-tests/${encodeURIComponent(m.fieldTest.id)}`} className="underline">
+          field test of {m.fieldTest.testedAt.toISOString().slice(0, 10)}
+        </Link>
+      ) : (
+        <span className="text-slate">field test no longer listed</span>
+      )}
+    </li>
+  );
+}
+
+/**
+ * The item's ports as a table: number, direction, connector in words, V/A/W and the details a charging
+ * path needs; a port measured by an approved port-output test shows the measured watts beside the claim.
+ */
+export function PortsList({ ports, measured = [] }: { ports: readonly PortClaim[]; measured?: readonly MeasuredPort[] }) {
   if (ports.length === 0) return null;
   const notes = connectorNotes(ports);
   return (
@@ -36,12 +60,18 @@ export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
       <h2 id="ports-heading" className="text-xl font-bold">
         Ports
       </h2>
-      <p className="text-sm text-slate">Inputs charge or power the item; outputs power other things. Figures are the most an output delivers, or what an input needs, as claimed.</p>
+      <p className="text-sm text-slate">
+        Inputs charge or power the item; outputs power other things. Figures are the most an output delivers, or what an input needs, as claimed by
+        the maker; where we measured an output under load, the measured watts stand beside the claim with a link to the test.
+      </p>
       <div className="overflow-x-auto rounded-lg border border-rule">
         <table className="w-full text-left text-sm" data-testid="ports-table">
           <caption className="sr-only">Ports: inputs and outputs with their volts, amps and watts</caption>
           <thead className="bg-card text-xs uppercase tracking-wide text-slate">
             <tr>
+              <th scope="col" className="px-3 py-2">
+                <abbr title="Port number" className="no-underline">#</abbr>
+              </th>
               <th scope="col" className="px-3 py-2">Connector</th>
               <th scope="col" className="px-3 py-2">Direction</th>
               <th scope="col" className="px-3 py-2">Volts</th>
@@ -51,8 +81,11 @@ export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
             </tr>
           </thead>
           <tbody>
-            {ports.map((p, i) => (
+            {ports.map((p, i) => {
+              const m = measuredFor(p, i, measured);
+              return (
               <tr key={i} className="border-t border-rule align-top" data-testid={`port-row-${i}`}>
+                <td className="px-3 py-2 figure font-mono text-slate">{i + 1}</td>
                 <th scope="row" className="px-3 py-2">
                   <span className="font-semibold">{capitalised(portKindLabel(p))}</span>
                   {p.label && p.kind !== 'other' ? <span className="block text-xs text-slate">{p.label}</span> : null}
@@ -61,7 +94,10 @@ export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
                 <td className="px-3 py-2">{PORT_DIRECTION_LABELS[p.direction]}</td>
                 <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.volts, 'V')}</td>
                 <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.amps, 'A')}</td>
-                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.watts, 'W')}</td>
+                <td className="whitespace-nowrap px-3 py-2 figure font-mono">
+                  {figure(p.watts, 'W')}
+                  {m?.watts != null ? <span className="block text-xs font-semibold text-lichen-dark">{formatFigure(m.watts)} W measured</span> : null}
+                </td>
                 <td className="px-3 py-2">
                   <ul className="space-y-1">
                     {p.pdProfiles?.length ? (
@@ -85,10 +121,12 @@ export function PortsList({ ports }: { ports: readonly PortClaim[] }) {
                       </li>
                     ) : null}
                     <li className="text-xs text-slate">Claimed · {CLAIM_SOURCE_LABELS[p.source] ?? p.source}</li>
+                    {m ? <MeasuredFigure m={m} index={i} /> : null}
                   </ul>
                 </td>
               </tr>
-            ))}
+              );
+            })}
           </tbody>
         </table>
       </div>

@@ -142,3 +142,31 @@ export function measuredFor<M extends { position: number; kind: string; directio
 ): M | undefined {
   return measured.find((m) => m.position === index && m.kind === claimed.kind && m.direction === claimed.direction && (m.label ?? null) === (claimed.label ?? null));
 }
+
+/** A port as the public API gives it: claimed figures, or a measured figure with the test it comes from. */
+export type PublicPort = Port & {
+  /** 1-based number of the port in the item's list (a measured figure carries the number of the port it measured). */
+  number: number;
+  basis: 'claimed' | 'measured';
+  /** Page of the approved port-output test a measured figure comes from; null for a claim. */
+  provenance: string | null;
+};
+
+type MeasuredRow = { position: number; kind: string; direction: string; label: string | null; volts: number | null; amps: number | null; watts: number | null; fieldTest: { id: string } | null };
+
+/** Claimed ports in order, each followed by its measured figure when a port-output test measured it. */
+export function publicPorts(claimed: readonly Port[], measured: readonly MeasuredRow[]): PublicPort[] {
+  return claimed.flatMap((port, index) => {
+    const out: PublicPort[] = [{ ...port, number: index + 1, basis: 'claimed', provenance: null }];
+    const m = measuredFor(port, index, measured);
+    if (m) {
+      const row: PublicPort = { kind: port.kind, direction: port.direction, number: index + 1, basis: 'measured', provenance: m.fieldTest ? `/field-tests/${encodeURIComponent(m.fieldTest.id)}` : null };
+      if (port.label) row.label = port.label;
+      if (m.volts !== null) row.volts = m.volts;
+      if (m.amps !== null) row.amps = m.amps;
+      if (m.watts !== null) row.watts = m.watts;
+      out.push(row);
+    }
+    return out;
+  });
+}

@@ -12,6 +12,7 @@ import { StatusBadge, STATE_LABELS } from '@/components/gear/status-badge';
 import { getDb } from '@/db';
 import { canEditGear, getGearView, specHistory } from '@/db/gear';
 import { countPhotos } from '@/db/photos';
+import { measuredPortsOf } from '@/db/measured-ports';
 import { PhotoGallery } from '@/components/photos/photo-gallery';
 import { PhotoUploader } from '@/components/photos/photo-uploader';
 import { AddToSideBySide } from '@/components/side-by-side/add-to-side-by-side';
@@ -134,7 +135,7 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
 
       <RolesAndFeatures version={version} lines={view.lines} units={units} />
 
-      <PortsList ports={version.ports} />
+      <PortsList ports={version.ports} measured={measuredPortsOf(getDb(), item.id)} />
 
       <section aria-labelledby="ratios-heading" className="space-y-3">
         <h2 id="ratios-heading" className="text-xl font-bold">
