@@ -12,6 +12,7 @@ import { isPublicFieldTest, itemsOfTest } from './field-tests-access';
 import type { CompareResponse } from '@/lib/browse/contract';
 import { buildComparison, type CompareConditions, type CompareItemInput } from '@/lib/compare';
 import { withRadioNoise } from '@/lib/compare/radio-noise';
+import { withFeatures } from '@/lib/compare/features';
 
 function latestPublicConditions(db: Db, itemId: string): CompareConditions | null {
   const testIds = db
@@ -48,5 +49,5 @@ export function compareGear(db: Db, slugs: readonly string[], caller: Caller, op
     ratios: s.ratios,
     conditions: latestPublicConditions(db, items[i]!.id),
   }));
-  return withRadioNoise(buildComparison(inputs, options), inputs);
+  return withFeatures(withRadioNoise(buildComparison(inputs, options), inputs), summaries);
 }

@@ -86,7 +86,7 @@ export interface CompareRow {
 }
 
 export interface CompareGroup {
-  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions' | 'radio-noise';
+  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions' | 'radio-noise' | 'features';
   label: string;
   rows: CompareRow[];
 }

@@ -41,6 +41,7 @@ const { approveGear, createGear, getGearView, specHistory, submitGear, updateGea
 const { featuresOfGear, rolesOfItem, alsoServesAsOf, itemServesAs } = await import('@/db/gear-roles');
 const { GET: GET_ONE, PATCH } = await import('@/app/api/v1/gear/[slug]/route');
 const { GET: GET_LIST } = await import('@/app/api/v1/gear/route');
+const { GET: GET_COMPARE } = await import('@/app/api/v1/compare/route');
 const { POST } = await import('@/app/api/v1/gear/route');
 const { updateGearAction } = await import('@/lib/gear/actions');
 
@@ -295,5 +296,20 @@ describe('browse and the public API', () => {
     const plain = (await (await GET_ONE(new Request(`${BASE}/api/v1/gear/${c.plain.slug}`), params(c.plain.slug))).json()) as typeof body;
     expect(plain.alsoServesAs).toEqual([]);
     expect(plain.features.find((f) => f.name === 'red-mode')!.state).toBe('has-not');
+  });
+
+  it('the side-by-side has a Features group with the approved answers in words', async () => {
+    const c = catalog();
+    const res = await GET_COMPARE(new Request(`${BASE}/api/v1/compare?items=${c.both.slug},${c.red.slug},${c.plain.slug}`));
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { groups: { id: string; rows: { key: string; cells: { value: unknown; best: boolean }[] }[] }[] };
+    const group = body.groups.find((g) => g.id === 'features')!;
+    const rows = Object.fromEntries(group.rows.map((r) => [r.key, r.cells.map((x) => x.value)]));
+    expect(rows['also-serves-as']).toEqual(['Power bank', 'Only its own category', 'Only its own category']);
+    // The plain lantern's pending red mode is not public: its approved answer is "has not".
+    expect(rows['feature:red-mode']).toEqual(['Has', 'Has', 'Has not']);
+    expect(rows['feature:hanging-hook']).toEqual(['Has (steel)', 'Not stated', 'Not stated']);
+    expect(rows['feature:ip-rating']).toEqual(['Has (IPX4)', 'Not stated', 'Has (IPX4)']);
+    expect(rows['feature:output-12v']).toBeUndefined();
   });
 });

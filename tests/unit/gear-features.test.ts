@@ -255,3 +255,29 @@ describe('form values', async () => {
     });
   });
 });
+
+describe('side-by-side features group', async () => {
+  const { featuresGroup } = await import('@/lib/compare/features');
+  const line = (name: string, state: 'has' | 'has-not' | 'not-stated', detail: string | null = null) => ({ name, label: name, state, detail });
+
+  it('has an also-serves row and one row per feature in words, empty where the feature is off an item’s checklist, never a best cell', () => {
+    const group = featuresGroup([
+      { alsoServesAs: ['power-bank'], features: [line('red-mode', 'has'), line('hanging-hook', 'has', 'steel'), line('output-12v', 'not-stated')] },
+      { alsoServesAs: [], features: [line('red-mode', 'has-not'), line('hanging-hook', 'not-stated'), line('output-12v', 'has-not')] },
+    ])!;
+    expect(group.id).toBe('features');
+    const rows = Object.fromEntries(group.rows.map((r) => [r.key, r.cells.map((c) => c.value)]));
+    expect(rows['also-serves-as']).toEqual(['Power bank', 'Only its own category']);
+    expect(rows['feature:red-mode']).toEqual(['Has', 'Has not']);
+    expect(rows['feature:hanging-hook']).toEqual(['Has (steel)', 'Not stated']);
+    expect(rows['feature:output-12v']).toEqual(['Not stated', 'Has not']);
+    expect(group.rows.find((r) => r.key === 'feature:red-mode')!.label).toBe('Red light mode');
+    expect(group.rows.flatMap((r) => r.cells).some((c) => c.best)).toBe(false);
+  });
+
+  it('leaves out features nobody states, and the whole group when no item has roles or a stated feature', () => {
+    expect(featuresGroup([{ alsoServesAs: [], features: [line('red-mode', 'not-stated')] }, {}])).toBeNull();
+    const group = featuresGroup([{ features: [line('red-mode', 'has'), line('magnet', 'not-stated')] }, { features: [line('magnet', 'not-stated')] }])!;
+    expect(group.rows.map((r) => r.key)).toEqual(['feature:red-mode']);
+  });
+});

@@ -100,7 +100,7 @@ const compareResponse = z
     items: z.array(gearSummary.pick({ slug: true, name: true, maker: true, category: true, kind: true, path: true, photo: true, price: true })),
     groups: z.array(
       z.object({
-        id: z.enum(['specs', 'ratios', 'measured-vs-claimed', 'test-conditions', 'radio-noise']),
+        id: z.enum(['specs', 'ratios', 'measured-vs-claimed', 'test-conditions', 'radio-noise', 'features']),
         label: z.string(),
         rows: z.array(
           z.object({
