@@ -93,7 +93,7 @@ export function FieldTestRecordForm({ mode, id, defaults, items }: { mode: 'crea
         <Button type="button" variant="quiet" onClick={() => instruments.append({ name: '', accuracy: '' })}>Add an instrument</Button>
       </fieldset>
 
-      <Field id="ft-method" label="Method notes" errors={err('methodNotes')}>
+      <Field id="ft-method" label="Method notes" hint={kind === 'radio-noise' ? 'Name the quiet reference supply the baseline was read on (e.g. a lead-acid battery, no charger), the receiver and how the item was placed.' : undefined} errors={err('methodNotes')}>
         <textarea id="ft-method" rows={5} className="block w-full rounded-md border border-rule bg-paper px-3 py-2 text-sm" {...register('methodNotes')} />
       </Field>
 

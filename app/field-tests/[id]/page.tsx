@@ -6,6 +6,8 @@ import { FieldTestRecord, FieldTestResults, FieldTestTrials } from '@/components
 import { formatTestedAt } from '@/components/field-tests/format';
 import { loadFieldTestView } from '@/components/field-tests/load-view';
 import { FieldTestStatus } from '@/components/field-tests/status-badge';
+import { RadioNoiseResults } from '@/components/field-tests/radio-noise-results';
+import { getTestRadioNoise } from '@/db/radio-noise';
 import { WorkflowButtons } from '@/components/field-tests/workflow-buttons';
 import { getCurrentUser } from '@/lib/auth/guard';
 import { KINDS } from '@/lib/field-tests/kinds';
@@ -34,9 +36,18 @@ export default async function FieldTestPage({ params }: { params: Promise<{ id: 
         {view.insider ? <p className="mt-2 text-sm"><Link className="underline" href={`/logbook/field-tests/${encodeURIComponent(test.id)}`}>Open in the logbook</Link></p> : null}
       </header>
       <WorkflowButtons id={test.id} actions={view.actions.filter((a) => a === 'approve' || a === 'request-changes')} />
-      <FieldTestResults view={view} />
-      <FieldTestRecord view={view} />
-      <FieldTestTrials view={view} />
+      {view.kind === 'radio-noise' ? (
+        <>
+          <RadioNoiseResults data={getTestRadioNoise(getDb(), test.id, user)} items={view.items} />
+          <FieldTestRecord view={view} />
+        </>
+      ) : (
+        <>
+          <FieldTestResults view={view} />
+          <FieldTestRecord view={view} />
+          <FieldTestTrials view={view} />
+        </>
+      )}
       <FieldTestEvents events={view.events} />
     </main>
   );

@@ -3,6 +3,7 @@ import Link from 'next/link';
 import { CategoryCautions } from '@/components/gear/category-cautions';
 import { LongTermTimeline } from '@/components/gear/long-term-timeline';
 import { PortsList } from '@/components/gear/ports-list';
+import { RadioNoiseSummary } from '@/components/gear/radio-noise-summary';
 import { AlsoServesLine, RolesAndFeatures } from '@/components/gear/roles-and-features';
 import { roleCautions, rolesOf } from '@/lib/gear/roles';
 import { RatiosTable } from '@/components/gear/ratios-table';
@@ -136,6 +137,8 @@ export default async function GearItemPage({ params }: { params: Promise<{ slug:
       <RolesAndFeatures version={version} lines={view.lines} units={units} />
 
       <PortsList ports={version.ports} measured={measuredPortsOf(getDb(), item.id)} />
+
+      <RadioNoiseSummary itemId={item.id} viewer={viewer} />
 
       <section aria-labelledby="ratios-heading" className="space-y-3">
         <h2 id="ratios-heading" className="text-xl font-bold">

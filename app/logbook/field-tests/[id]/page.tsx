@@ -9,6 +9,9 @@ import { itemOptionsFor } from '@/components/field-tests/item-options';
 import { loadFieldTestView } from '@/components/field-tests/load-view';
 import { FieldTestRecordForm } from '@/components/field-tests/record-form';
 import { FieldTestStatus } from '@/components/field-tests/status-badge';
+import { RadioNoiseEditor } from '@/components/field-tests/radio-noise-editor';
+import { RadioNoiseResults } from '@/components/field-tests/radio-noise-results';
+import { getTestRadioNoise } from '@/db/radio-noise';
 import { WorkflowButtons } from '@/components/field-tests/workflow-buttons';
 import { readingsMaxBytes } from '@/app/api/v1/field-tests/handlers';
 import { requirePageRole } from '@/lib/auth/guard';
@@ -24,6 +27,7 @@ export default async function LogbookFieldTestPage({ params }: { params: Promise
   const view = loadFieldTestView(db, id, user);
   const { test } = view;
   const editing = view.canEdit;
+  const radioNoise = view.kind === 'radio-noise' ? getTestRadioNoise(db, test.id, user) : null;
   return (
     <main className="mx-auto max-w-3xl space-y-10 px-4 py-10 sm:px-6">
       <div>
@@ -57,8 +61,24 @@ export default async function LogbookFieldTestPage({ params }: { params: Promise
       ) : (
         <FieldTestRecord view={view} />
       )}
-      <FieldTestTrials view={view}>{editing ? (trialId) => <DeleteTrialButton testId={test.id} trialId={trialId} /> : undefined}</FieldTestTrials>
-      {editing ? (
+      {radioNoise ? (
+        <>
+          {editing ? (
+            <section aria-labelledby="rn-edit" className="space-y-4">
+              <h2 id="rn-edit" className="text-xl font-semibold">Band readings</h2>
+              <RadioNoiseEditor
+                testId={test.id}
+                items={view.items.map((i) => ({ slug: i.slug, name: i.name }))}
+                defaults={radioNoise.readings.map((r) => ({ item: r.item.slug, band: r.band, frequencyMHz: r.frequencyMHz, mode: r.mode, bandwidthHz: r.bandwidthHz, antenna: r.antenna, distanceM: r.distanceM, baseline: r.baseline, withItem: r.withItem }))}
+              />
+            </section>
+          ) : null}
+          <RadioNoiseResults data={radioNoise} items={view.items} />
+        </>
+      ) : (
+        <FieldTestTrials view={view}>{editing ? (trialId) => <DeleteTrialButton testId={test.id} trialId={trialId} /> : undefined}</FieldTestTrials>
+      )}
+      {editing && !radioNoise ? (
         <AddTrial
           testId={test.id}
           kind={view.kind}
@@ -66,7 +86,7 @@ export default async function LogbookFieldTestPage({ params }: { params: Promise
           items={view.items.map((i) => ({ slug: i.slug, name: i.name, ratedW: i.context.ratedW ?? null, ratedEnergyWh: i.context.ratedEnergyWh ?? null }))}
         />
       ) : null}
-      <FieldTestResults view={view} />
+      {radioNoise ? null : <FieldTestResults view={view} />}
       <FieldTestEvents events={view.events} />
     </main>
   );
