@@ -34,6 +34,7 @@ import type { SeriesRow } from './series';
 import { DEMO_ACCOUNTS, DEMO_FIELD_TESTS, DEMO_GEAR, DEMO_KITS, DEMO_MEASURED_SPECS, DEMO_REVIEWS, type DemoUserKey } from './demo-data';
 import { seedDemoBuyLinks } from './buy-links';
 import { seedDemoPorts } from './ports';
+import { seedDemoPortOutput } from './port-output';
 import { seedDemoLongTermNotes } from './long-term-notes';
 
 export { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, DEMO_PLACES, demoAccount, type DemoAccount } from './demo-data';
@@ -345,6 +346,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
 
     inserted.reviewBuyLinks += seedDemoBuyLinks(tx);
     inserted.gearPorts += seedDemoPorts(tx);
+    inserted.trials += seedDemoPortOutput(tx, userId);
     seedDemoLongTermNotes(tx, userId);
 
     // Kits.

@@ -173,11 +173,11 @@ describe('seedDemo on a fresh database', () => {
 
   it('includes approved and draft field tests with trials and readings of every kind', () => {
     const tests = all<{ id: string; kind: string; status: string; place_label: string }>('select id, kind, status, place_label from field_tests');
-    expect(new Set(tests.map((t) => t.kind))).toEqual(new Set(['light-runtime', 'energy-delivered', 'solar-output', 'mass-check']));
+    expect(new Set(tests.map((t) => t.kind))).toEqual(new Set(['light-runtime', 'energy-delivered', 'solar-output', 'mass-check', 'port-output']));
     expect(tests.some((t) => t.status === 'draft')).toBe(true);
     expect(tests.filter((t) => t.status === 'approved').length).toBeGreaterThanOrEqual(3);
     for (const t of tests) expect(['Upper Meadow camp', 'Lakeshore test bench']).toContain(t.place_label);
-    const seriesless = all("select t.id from trials t join field_tests f on f.id = t.field_test_id where f.kind != 'mass-check' and (t.series is null or t.series_length < 2)");
+    const seriesless = all("select t.id from trials t join field_tests f on f.id = t.field_test_id where f.kind not in ('mass-check', 'port-output') and (t.series is null or t.series_length < 2)");
     expect(seriesless).toEqual([]);
     const trialless = all('select id from field_tests where id not in (select field_test_id from trials)');
     expect(trialless).toEqual([]);
