@@ -103,7 +103,17 @@ test('a reader builds a side-by-side of three lights, reorders it and exports a 
   expect(parsed[0]!.slice(0, 3)).toEqual(['Group', 'Figure', 'Unit']);
   // The file holds the table's figures as plain machine numbers: "10,400" on screen is 10400 in the CSV.
   const groupedNumber = /^-?\d{1,3}(,\d{3})*(\.\d+)?$/;
-  const asInFile = rows.map((row) => row.map((text) => (groupedNumber.test(text) ? text.replace(/,/g, '') : text)));
+  // A row of per-money ratios in several currencies shows "8.7 lm/EUR" per cell; the file keeps the number
+  // there and lists the cells' units, in column order, in the Unit column ("lm/USD; lm/EUR; lm/USD").
+  const asInFile = rows.map((row, r) => {
+    const perCellUnits = parsed[r + 1]![2]!.includes(';');
+    return row.map((text, c) => {
+      const own = perCellUnits && c > 0 ? /^(\S+) (\S+)$/.exec(text) : null;
+      if (own) expect(parsed[r + 1]![2]!.split('; ')[c - 1]).toBe(own[2]);
+      const figure = own ? own[1]! : text;
+      return groupedNumber.test(figure) ? figure.replace(/,/g, '') : figure;
+    });
+  });
   expect(parsed.slice(1).map((r) => [r[1], ...r.slice(3, 6)])).toEqual(asInFile);
   for (const line of parsed.slice(1)) for (const cell of line.slice(3, 6)) expect(cell).not.toMatch(/^-?\d{1,3}(,\d{3})+/);
 
