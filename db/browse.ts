@@ -18,7 +18,7 @@ import type { Db } from './connection';
 import { radioQuietCondition } from './browse-radio-quiet';
 import { categoryFacetQuery, featureConditions, servesAsCondition } from './browse-roles';
 import { rolesAndFeaturesOf } from './gear-roles';
-import { livePortsOf } from './gear-ports';
+import { publicPortsOf } from './measured-ports';
 import { gearItems, gearRatios, photos, specs, type GearItem, type Role } from './schema';
 import type { Figure, GearListResponse, GearSummary } from '@/lib/browse/contract';
 import { decodeGearCursor, encodeCursor } from '@/lib/browse/cursor';
@@ -258,7 +258,7 @@ export function getGearSummary(db: Db, slug: string, caller: Caller, options: { 
   const [item] = findReadableGear(db, [slug], caller);
   const summary = summaries(db, [item!], { caller, imperial: options.imperial ?? false })[0]!;
   // The live port rows are the approved ones of a public item (an edit waits in its pending change).
-  return { ...summary, ports: livePortsOf(db, item!.id) };
+  return { ...summary, ports: publicPortsOf(db, item!.id) };
 }
 
 export { summaries as gearSummaries };

@@ -40,8 +40,11 @@ export interface GearSummary {
   reviewed: boolean;
   /** `draft`, `in-review` … only in authenticated responses that include the caller's own unpublished items. */
   status?: string;
-  /** Claimed ports (lib/measure `Port`, V/A/W), approved ones for a public item; only in `GET /api/v1/gear/{slug}`. */
-  ports?: Port[];
+  /**
+   * Claimed ports (lib/measure `Port`, V/A/W), approved ones for a public item, each followed by its
+   * measured figure when a port-output test measured it; only in `GET /api/v1/gear/{slug}`.
+   */
+  ports?: (Port & { number: number; basis: 'claimed' | 'measured'; provenance: string | null })[];
   /** Other categories the item also serves as (never its primary one); it is listed under each of them too. Present in every gear answer. */
   alsoServesAs?: string[];
   /** The feature checklist of all its roles: `has`, `has-not` or `not-stated`, with a detail such as a hook's material. */

@@ -8,6 +8,7 @@ import { gearItems, gearPorts, trials } from '@/db/schema';
 import { createUser } from '@/db/users';
 import { claimedPortRow } from '@/db/gear-ports';
 import { measuredPortsOf } from '@/db/measured-ports';
+import { getGearSummary } from '@/db/browse';
 import { handleCreateFieldTest, handleTransition, handleTypedTrial } from '@/app/api/v1/field-tests/handlers';
 
 /*
@@ -86,6 +87,13 @@ describe('port-output tests', () => {
     expect(measured.watts).toBeCloseTo(26.8194, 12); // (26.609 + 27.0298) / 2
 
     expect(measuredPortsOf(db, bankId).map((m) => [m.position, m.fieldTest?.id])).toEqual([[0, id]]);
+    const summary = getGearSummary(db, 'cell-20', null);
+    expect(summary.ports?.map((p) => [p.number, p.kind, p.direction, p.basis, p.provenance])).toEqual([
+      [1, 'usb-c', 'output', 'claimed', null],
+      [1, 'usb-c', 'output', 'measured', `/field-tests/${id}`],
+      [2, 'usb-c', 'input', 'claimed', null],
+    ]);
+    expect(summary.ports?.[1]?.watts).toBeCloseTo(26.8194, 12);
   });
 
   it('an earlier test approved later does not replace a later test’s figure', async () => {

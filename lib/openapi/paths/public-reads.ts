@@ -48,6 +48,9 @@ const port = z
     voltageWindow: z.object({ minVolts: z.number(), maxVolts: z.number() }).optional().meta({ description: 'Inputs only: voltages accepted, V, inclusive.' }),
     label: z.string().optional().meta({ description: 'Name of the connector; always present for `other`.' }),
     efficiency: z.number().optional().meta({ description: 'Conversion efficiency inside the item at this port, (0, 1].' }),
+    number: z.number().int().meta({ description: 'Number of the port in the item’s list, from 1 (a measured figure carries the number of the port it measured).' }),
+    basis: z.enum(['claimed', 'measured']).meta({ description: '`claimed` by the maker, or `measured` under load by an approved port-output field test (volts, amps and watts as read; listed right after its claimed port).' }),
+    provenance: z.string().nullable().meta({ description: 'Page of the approved field test a measured figure comes from; null for a claim.' }),
   })
   .meta({ id: 'Port' });
 
@@ -69,7 +72,7 @@ const gearSummary = z
     ports: z
       .array(port)
       .optional()
-      .meta({ description: 'Only in `GET /api/v1/gear/{slug}`: the claimed ports (approved ones for a public item), inputs and outputs, in the author’s order.' }),
+      .meta({ description: 'Only in `GET /api/v1/gear/{slug}`: the claimed ports (approved ones for a public item), inputs and outputs, in the author’s order; a port measured by an approved port-output test is followed by its measured figure (`basis: measured`).' }),
     ...gearRolesAndFeaturesShape,
   })
   .meta({ id: 'GearSummary' });
