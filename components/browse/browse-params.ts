@@ -4,7 +4,9 @@
  * (first page) and in the client (TanStack Query key), so both agree on what the first page is.
  */
 
-export const BROWSE_FIXED_KEYS = ['category', 'kind', 'q', 'sort', 'order', 'measured', 'reviewed', 'currency', 'min.mass', 'max.mass', 'radioQuiet'] as const;
+import { FEATURE_PARAM_KEYS } from '@/lib/browse/feature-filters';
+
+export const BROWSE_FIXED_KEYS = ['category', 'kind', 'q', 'sort', 'order', 'measured', 'reviewed', 'currency', 'min.mass', 'max.mass', 'radioQuiet', ...FEATURE_PARAM_KEYS] as const;
 
 /** Range parameters of the sorted figure (`min.lm-per-g`, `max.lm-per-g`), when it is not mass. */
 export function sortRangeKeys(sort: string | null | undefined): string[] {

@@ -14,6 +14,8 @@ import type { UnitSystem } from '@/lib/units/display';
 import { filterUnit } from '@/lib/units/filter';
 import { RangeFilter } from './range-filter';
 import { offersRadioQuiet, RadioQuietFilterChips } from './radio-quiet-filter';
+import { FeatureFilterChecklist } from './feature-filter';
+import { featureKeysOutside } from '@/lib/browse/feature-filters';
 import { BROWSE_CURRENCIES, sortOptions } from './sort-options';
 
 interface Props {
@@ -80,6 +82,7 @@ export function BrowseView({ initial, units }: Props) {
       next.kind = null;
       if (v === null || !sortOptions(v, null).some((o) => o.key === fixed.sort)) next.sort = null;
       if (!offersRadioQuiet(v)) next.radioQuiet = null;
+      for (const k of featureKeysOutside(v)) next[k] = null;
     }
     if (key === 'sort') {
       next.order = null;
@@ -174,6 +177,8 @@ export function BrowseView({ initial, units }: Props) {
           className={field}
           nonNegative
         />
+
+        <FeatureFilterChecklist category={category} values={fixed} onChange={set} />
 
         {offersRadioQuiet(category) ? <RadioQuietFilterChips value={fixed.radioQuiet} onChange={(v) => set('radioQuiet', v)} /> : null}
 
@@ -304,7 +309,7 @@ export function BrowseView({ initial, units }: Props) {
               {category || sort ? (
                 <ol className="mt-4 space-y-3" data-testid={`gear-list-${category ?? 'all'}`}>
                   {items.map((item) => (
-                    <GearCard key={item.slug} item={item} sort={sort} imperial={imperial} />
+                    <GearCard key={item.slug} item={item} sort={sort} imperial={imperial} listedAs={category} />
                   ))}
                 </ol>
               ) : (

@@ -5,6 +5,8 @@ import { isCategory } from '@/lib/measure';
 import { AddToSideBySide } from '../side-by-side/add-to-side-by-side';
 import { figureText, priceText } from './figure-text';
 import { RadioQuietBadge } from './radio-quiet-badge';
+import { RoleNote } from './role-note';
+import type { Category } from '@/lib/measure';
 
 const BASIS = {
   measured: { mark: '●', text: 'measured' },
@@ -27,10 +29,12 @@ interface Props {
   sort: { key: string; label: string } | null;
   imperial: boolean;
   headingLevel?: 3 | 4;
+  /** The category browsed, when one is chosen (a lantern listed under power banks says it serves as one). */
+  listedAs?: Category | null;
 }
 
 /** One browse result: photo, name, the figure sorted by (with its basis), mass, price and the side-by-side button. */
-export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
+export function GearCard({ item, sort, imperial, headingLevel = 3, listedAs = null }: Props) {
   const Heading = headingLevel === 3 ? 'h3' : 'h4';
   const sorted: Figure | null = sort ? (sort.key === 'price' ? null : (item.specs[sort.key] ?? item.ratios[sort.key] ?? null)) : null;
   const mass = item.specs.mass;
@@ -56,6 +60,7 @@ export function GearCard({ item, sort, imperial, headingLevel = 3 }: Props) {
             {item.name}
           </Link>
         </Heading>
+        <RoleNote item={item} listedAs={listedAs} />
         {sort ? (
           <p className="text-sm" data-testid="sorted-figure">
             <span className="text-slate">{sort.label}: </span>

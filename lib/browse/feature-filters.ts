@@ -5,7 +5,8 @@
  * framework imports.
  */
 import { z } from 'zod';
-import { FEATURE_DEFS, FEATURE_NAMES, FEATURE_PARAM_PREFIX, isFeatureName, type FeatureName } from '@/lib/gear/features';
+import { CATEGORY_FEATURES, FEATURE_DEFS, FEATURE_NAMES, FEATURE_PARAM_PREFIX, isFeatureName, type FeatureName } from '@/lib/gear/features';
+import { isCategory } from '@/lib/measure';
 
 export const featureParamShape = Object.fromEntries(
   FEATURE_NAMES.map((name) => [
@@ -34,3 +35,18 @@ export function unknownFeatureParamMessage(param: string): string | null {
   if (isFeatureName(name)) return null;
   return `Is not a feature of any checklist. Known features: ${FEATURE_NAMES.join(', ')}.`;
 }
+
+/** URL keys of the feature filters (`feature.red-mode` …), one per feature; the value is `true` or absent. */
+export const FEATURE_PARAM_KEYS = FEATURE_NAMES.map((name) => `${FEATURE_PARAM_PREFIX}${name}` as const) as readonly `feature.${FeatureName}`[];
+
+/** The feature filters a category offers (its checklist); none without a category. */
+export function offeredFeatures(category: string | null): readonly FeatureName[] {
+  return category && isCategory(category) ? CATEGORY_FEATURES[category] : [];
+}
+
+/** Feature keys to clear when the category changes: those the new category's checklist lacks. */
+export function featureKeysOutside(category: string | null): string[] {
+  const keep = new Set(offeredFeatures(category));
+  return FEATURE_NAMES.filter((n) => !keep.has(n)).map((n) => `${FEATURE_PARAM_PREFIX}${n}`);
+}
+

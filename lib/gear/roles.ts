@@ -96,3 +96,17 @@ export function roleCautions(roles: readonly Category[]): CautionKey[] {
   for (const role of roles) for (const c of CATEGORY_DEFS[role].cautions) if (!out.includes(c)) out.push(c);
   return out;
 }
+
+/**
+ * A browse card's note on an item listed under another role: "A lantern serving as a power bank" (the
+ * kind's or category's label); "Also serves as a power bank" when listed under its own category; null
+ * for a single-role item.
+ */
+export function roleNote(item: { category: Category; kindLabel: string | null; alsoServesAs: readonly Category[] }, listedAs: Category | null): string | null {
+  if (item.alsoServesAs.length === 0) return null;
+  if (listedAs && listedAs !== item.category && item.alsoServesAs.includes(listedAs)) {
+    const own = (item.kindLabel ?? CATEGORY_DEFS[item.category].label).toLowerCase().replace('12 v', '12 V');
+    return `${/^[aeiou]/.test(own) ? 'An' : 'A'} ${own} serving as ${roleNoun(listedAs)}`;
+  }
+  return alsoServesText(item.alsoServesAs);
+}

@@ -281,3 +281,30 @@ describe('side-by-side features group', async () => {
     expect(group.rows.map((r) => r.key)).toEqual(['feature:red-mode']);
   });
 });
+
+describe('browse feature parameters', async () => {
+  const { featureKeysOutside, offeredFeatures, FEATURE_PARAM_KEYS } = await import('@/lib/browse/feature-filters');
+  const { browseApiQuery, browseValuesFromSearchParams } = await import('@/components/browse/browse-params');
+  const { roleNote } = await import('@/lib/gear/roles');
+
+  it('offers the chosen category’s checklist and clears the others on a category change', () => {
+    expect(offeredFeatures('light')).toEqual(CATEGORY_FEATURES.light);
+    expect(offeredFeatures(null)).toEqual([]);
+    expect(featureKeysOutside('light')).toContain('feature.kickstand');
+    expect(featureKeysOutside('light')).not.toContain('feature.red-mode');
+    expect(FEATURE_PARAM_KEYS).toContain('feature.red-mode');
+  });
+
+  it('carries feature filters from the page URL into the API query', () => {
+    const values = browseValuesFromSearchParams({ category: 'light', 'feature.red-mode': 'true', 'feature.bogus': 'true' });
+    const query = new URLSearchParams(browseApiQuery(values));
+    expect(query.get('feature.red-mode')).toBe('true');
+    expect(query.has('feature.bogus')).toBe(false);
+  });
+
+  it('says on a card that a lantern listed under banks serves as one', () => {
+    expect(roleNote({ category: 'light', kindLabel: 'Lantern', alsoServesAs: ['power-bank'] }, 'power-bank')).toBe('A lantern serving as a power bank');
+    expect(roleNote({ category: 'light', kindLabel: 'Lantern', alsoServesAs: ['power-bank'] }, 'light')).toBe('Also serves as a power bank');
+    expect(roleNote({ category: 'light', kindLabel: null, alsoServesAs: [] }, null)).toBeNull();
+  });
+});
