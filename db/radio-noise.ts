@@ -24,8 +24,10 @@ import {
   noiseRiseSpecs,
   radioNoiseReadingsInputSchema,
   summaryOfRises,
+  type BandFigures,
   type MeterReading,
   type RadioMode,
+  type RadioNoiseBandInput,
 } from '@/lib/field-tests/radio-noise';
 import { MeasureError, radioQuietVerdict, type RadioQuietSummary, type RadioQuietVerdict, type SMeterRange, type SpecKey } from '@/lib/measure';
 
@@ -116,6 +118,31 @@ function viewOf(rows: readonly RadioNoiseReading[], items: readonly GearItem[]):
   return { readings, summaries };
 }
 
+/** The stored row of one band reading (its figures from `bandFigures`). */
+export function readingRow(fieldTestId: string, gearItemId: string, position: number, band: RadioNoiseBandInput, figures: BandFigures): typeof radioNoiseReadings.$inferInsert {
+  return {
+    id: randomUUID(),
+    fieldTestId,
+    gearItemId,
+    position,
+    band: band.band,
+    frequencyMhz: band.frequencyMHz,
+    range: figures.range,
+    mode: band.mode,
+    bandwidthHz: band.bandwidthHz,
+    antenna: band.antenna,
+    distanceM: band.distanceM,
+    baselineScale: band.baseline.scale,
+    baselineSUnits: band.baseline.scale === 's-meter' ? band.baseline.sUnits : null,
+    baselineDbOverS9: band.baseline.scale === 's-meter' ? band.baseline.dbOverS9 : null,
+    baselineDbm: figures.baselineDbm,
+    withItemScale: band.withItem.scale,
+    withItemSUnits: band.withItem.scale === 's-meter' ? band.withItem.sUnits : null,
+    withItemDbOverS9: band.withItem.scale === 's-meter' ? band.withItem.dbOverS9 : null,
+    withItemDbm: figures.withItemDbm,
+  };
+}
+
 /** A test's band readings and per-item summaries, for anyone who may see the test (else 404). */
 export function getTestRadioNoise(db: Q, testId: string, viewer: Actor | null): TestRadioNoise {
   const { test, items } = findVisibleFieldTest(db, testId, viewer);
@@ -152,29 +179,7 @@ export function saveRadioNoiseReadings(db: Db, actor: Actor, testId: string, raw
       if (Object.keys(fields).length) throw new AppError('invalid', 'Some band readings are not valid.', { fields });
       tx.delete(radioNoiseReadings).where(eq(radioNoiseReadings.fieldTestId, test.id)).run();
       tx.insert(radioNoiseReadings)
-        .values(
-          rows.map(({ band, item, figures }, position) => ({
-            id: randomUUID(),
-            fieldTestId: test.id,
-            gearItemId: item!.id,
-            position,
-            band: band.band,
-            frequencyMhz: band.frequencyMHz,
-            range: figures!.range,
-            mode: band.mode,
-            bandwidthHz: band.bandwidthHz,
-            antenna: band.antenna,
-            distanceM: band.distanceM,
-            baselineScale: band.baseline.scale,
-            baselineSUnits: band.baseline.scale === 's-meter' ? band.baseline.sUnits : null,
-            baselineDbOverS9: band.baseline.scale === 's-meter' ? band.baseline.dbOverS9 : null,
-            baselineDbm: figures!.baselineDbm,
-            withItemScale: band.withItem.scale,
-            withItemSUnits: band.withItem.scale === 's-meter' ? band.withItem.sUnits : null,
-            withItemDbOverS9: band.withItem.scale === 's-meter' ? band.withItem.dbOverS9 : null,
-            withItemDbm: figures!.withItemDbm,
-          })),
-        )
+        .values(rows.map(({ band, item, figures }, position) => readingRow(test.id, item!.id, position, band, figures!)))
         .run();
       tx.update(fieldTests).set({ updatedAt: now }).where(eq(fieldTests.id, test.id)).run();
       return viewOf(rowsOfTest(tx, test.id), items);

@@ -36,6 +36,7 @@ import { seedDemoBuyLinks } from './buy-links';
 import { seedDemoPorts } from './ports';
 import { seedDemoPortOutput } from './port-output';
 import { seedDemoLongTermNotes } from './long-term-notes';
+import { seedDemoRadioNoise } from './radio-noise';
 
 export { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, DEMO_PLACES, demoAccount, type DemoAccount } from './demo-data';
 
@@ -348,6 +349,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
     inserted.gearPorts += seedDemoPorts(tx);
     inserted.trials += seedDemoPortOutput(tx, userId);
     seedDemoLongTermNotes(tx, userId);
+    inserted.fieldTests += seedDemoRadioNoise(tx, userId);
 
     // Kits.
     for (const kit of DEMO_KITS) {

@@ -65,7 +65,7 @@ describe('seedDemo on a fresh database', () => {
   });
 
   it('gives every item claimed specs with a known key, a claim source and a positive finite value', () => {
-    const keys = ['mass', 'luminousFlux', 'runtime', 'peakIntensity', 'ratedEnergy', 'deliveredEnergy', 'ratedPower', 'powerDraw', 'transmitPower', 'supplyVoltage', 'continuousPower'];
+    const keys = ['mass', 'luminousFlux', 'runtime', 'peakIntensity', 'ratedEnergy', 'deliveredEnergy', 'ratedPower', 'powerDraw', 'transmitPower', 'supplyVoltage', 'continuousPower', 'noiseRiseBelow30', 'noiseRiseAbove30'];
     const specs = all<{ gear_item_id: string; key: string; mode: string; basis: string; value: number; claim_source: string | null }>('select * from specs');
     for (const s of specs) {
       expect(keys).toContain(s.key);
@@ -148,7 +148,16 @@ describe('seedDemo on a fresh database', () => {
       return decoded.samples.map((s) => ({ t: s.t, value: s.value ?? null, watts: s.watts ?? null }));
     };
 
-    for (const m of measured) {
+    // Radio-noise specs come from band readings, not trials: worst rise per range (IARU Region 1 Rec. R.1, check-values.md §12).
+    // Cellhive 20: 80 m S4 → S6 is 2 S-units × 6 dB = 12 dB; above 30 MHz 2 m −124 → −123.5 dBm = 0.5 dB.
+    // Heathray 60: 15 m −118 → −117.2 dBm = 0.8 dB; 6 m −128 → −127.6 dBm = 0.4 dB.
+    const noise = (item: string, key: string) => measured.find((m) => m.gear_item_id === `demo-gear-${item}` && m.key === key)?.value;
+    expect(noise('voltmoth-cellhive-20', 'noiseRiseBelow30')).toBeCloseTo(12, 9);
+    expect(noise('voltmoth-cellhive-20', 'noiseRiseAbove30')).toBeCloseTo(0.5, 9);
+    expect(noise('brackenfold-heathray-60', 'noiseRiseBelow30')).toBeCloseTo(0.8, 9);
+    expect(noise('brackenfold-heathray-60', 'noiseRiseAbove30')).toBeCloseTo(0.4, 9);
+
+    for (const m of measured.filter((x) => !x.key.startsWith('noiseRise'))) {
       const trials = trialsOf(m.field_test_id, m.gear_item_id);
       expect(trials.length).toBe(m.n);
       let perTrial: number[];
@@ -173,14 +182,18 @@ describe('seedDemo on a fresh database', () => {
 
   it('includes approved and draft field tests with trials and readings of every kind', () => {
     const tests = all<{ id: string; kind: string; status: string; place_label: string }>('select id, kind, status, place_label from field_tests');
-    expect(new Set(tests.map((t) => t.kind))).toEqual(new Set(['light-runtime', 'energy-delivered', 'solar-output', 'mass-check', 'port-output']));
+    expect(new Set(tests.map((t) => t.kind))).toEqual(new Set(['light-runtime', 'energy-delivered', 'solar-output', 'mass-check', 'port-output', 'radio-noise']));
     expect(tests.some((t) => t.status === 'draft')).toBe(true);
     expect(tests.filter((t) => t.status === 'approved').length).toBeGreaterThanOrEqual(3);
     for (const t of tests) expect(['Upper Meadow camp', 'Lakeshore test bench']).toContain(t.place_label);
     const seriesless = all("select t.id from trials t join field_tests f on f.id = t.field_test_id where f.kind not in ('mass-check', 'port-output') and (t.series is null or t.series_length < 2)");
     expect(seriesless).toEqual([]);
-    const trialless = all('select id from field_tests where id not in (select field_test_id from trials)');
+    const trialless = all("select id from field_tests where kind != 'radio-noise' and id not in (select field_test_id from trials)");
     expect(trialless).toEqual([]);
+    // A radio-noise check holds band readings instead of trials.
+    const bandless = all("select id from field_tests where kind = 'radio-noise' and id not in (select field_test_id from radio_noise_readings)");
+    expect(bandless).toEqual([]);
+    expect(all("select id from field_tests where kind = 'radio-noise' and status = 'approved'").length).toBeGreaterThanOrEqual(2);
     const unlinked = all('select t.id from trials t left join field_test_items i on i.field_test_id = t.field_test_id and i.gear_item_id = t.gear_item_id where i.field_test_id is null');
     expect(unlinked).toEqual([]);
   });
