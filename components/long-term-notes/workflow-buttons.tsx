@@ -20,6 +20,7 @@ export function NoteWorkflowButtons({ id, actions, title }: { id: string; action
   const [comment, setComment] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | undefined>();
+  const [sendingBack, setSendingBack] = useState(false);
   const shown = actions.filter((a) => LABELS[a]);
   if (shown.length === 0) return null;
 
@@ -33,26 +34,43 @@ export function NoteWorkflowButtons({ id, actions, title }: { id: string; action
       return;
     }
     setComment('');
+    setSendingBack(false);
     router.refresh();
   };
 
+  const moves = shown.filter((a) => a !== 'request-changes');
   return (
     <div className="space-y-3" role="group" aria-label={`Review of “${title}”`} data-testid="long-term-note-actions">
-      {shown.includes('request-changes') ? (
-        <div className="space-y-1">
-          <label htmlFor={`${uid}-comment`} className="block text-sm font-semibold">
-            Comment for the author (needed to send it back)
-          </label>
-          <textarea id={`${uid}-comment`} value={comment} onChange={(e) => setComment(e.target.value)} rows={2} className="block w-full rounded-md border border-rule bg-paper px-3 py-2 text-sm" />
-        </div>
-      ) : null}
       <div className="flex flex-wrap gap-2">
-        {shown.map((a) => (
-          <Button key={a} type="button" disabled={busy} variant={a === 'request-changes' || a === 'withdraw' ? 'quiet' : 'primary'} onClick={() => void run(a)} data-action={a}>
+        {shown.includes('request-changes') ? (
+          <Button type="button" variant="quiet" disabled={busy} aria-expanded={sendingBack} aria-controls={`${uid}-send-back`} onClick={() => setSendingBack(!sendingBack)}>
+            Send back…
+          </Button>
+        ) : null}
+        {moves.map((a) => (
+          <Button key={a} type="button" disabled={busy} variant={a === 'withdraw' ? 'quiet' : 'primary'} onClick={() => void run(a)} data-action={a}>
             {LABELS[a]}
           </Button>
         ))}
       </div>
+      {sendingBack ? (
+        <form
+          id={`${uid}-send-back`}
+          className="space-y-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void run('request-changes');
+          }}
+        >
+          <label htmlFor={`${uid}-comment`} className="block text-sm font-semibold">
+            What should the author change? (they see this with the note)
+          </label>
+          <textarea id={`${uid}-comment`} value={comment} onChange={(e) => setComment(e.target.value)} rows={3} className="block w-full rounded-md border border-rule bg-paper px-3 py-2 text-sm" />
+          <Button type="submit" disabled={busy} data-action="request-changes">
+            {LABELS['request-changes']}
+          </Button>
+        </form>
+      ) : null}
       <FormMessage message={error} />
     </div>
   );

@@ -64,7 +64,24 @@ test('a reviewer adds a note to their own item and submits it; the editor approv
   const deskAxe = await new AxeBuilder({ page: desk }).include('[data-testid="desk-long-term-notes"]').analyze();
   expect(deskAxe.violations.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
   if (SHOTS) await desk.getByTestId('desk-long-term-notes').screenshot({ path: `${SHOTS}/long-term-notes-desk.png` });
-  await card.getByRole('button', { name: 'Approve and publish' }).click();
+
+  // Sent back first: a comment is needed; the author sees it, answers and submits again.
+  await card.getByRole('button', { name: 'Send back…' }).click();
+  await card.getByRole('button', { name: 'Send back to the author' }).click();
+  await expect(card.getByTestId('form-message')).toContainText('comment');
+  await card.getByLabel('What should the author change?').fill('Say how long the panel has been in service on the junction-box side.');
+  await card.getByRole('button', { name: 'Send back to the author' }).click();
+  await expect(desk.locator(`#long-term-note-${id}`)).toHaveCount(0);
+  await page.goto(`/logbook/notes/${id}`);
+  await expect(page.getByTestId('send-back-comment')).toContainText('junction-box side');
+  await page.getByLabel('The note (Markdown)').fill('The webbing at the **centre fold** has frayed where it rubs on the junction box, after about 40 days of daily use.');
+  await page.getByRole('button', { name: 'Save the note' }).click();
+  await expect(page.getByTestId('form-message')).toHaveText('Saved.');
+  await page.getByRole('button', { name: 'Submit for review' }).click();
+  await expect(page.getByTestId('gear-status')).toHaveText('In review');
+
+  await desk.reload();
+  await desk.locator(`#long-term-note-${id}`).getByRole('button', { name: 'Approve and publish' }).click();
   await expect(desk.locator(`#long-term-note-${id}`)).toHaveCount(0);
 
   // The guest now sees it in the timeline: an ordered list, a real date, months and the kind in words.
