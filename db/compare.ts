@@ -13,6 +13,8 @@ import type { CompareResponse } from '@/lib/browse/contract';
 import { buildComparison, type CompareConditions, type CompareItemInput } from '@/lib/compare';
 import { withRadioNoise } from '@/lib/compare/radio-noise';
 import { withFeatures } from '@/lib/compare/features';
+import { withPorts } from '@/lib/compare/ports';
+import { publicPortsOf } from './measured-ports';
 
 function latestPublicConditions(db: Db, itemId: string): CompareConditions | null {
   const testIds = db
@@ -49,5 +51,5 @@ export function compareGear(db: Db, slugs: readonly string[], caller: Caller, op
     ratios: s.ratios,
     conditions: latestPublicConditions(db, items[i]!.id),
   }));
-  return withFeatures(withRadioNoise(buildComparison(inputs, options), inputs), summaries);
+  return withPorts(withFeatures(withRadioNoise(buildComparison(inputs, options), inputs), summaries), items.map((i) => publicPortsOf(db, i.id)));
 }

@@ -89,7 +89,7 @@ export interface CompareRow {
 }
 
 export interface CompareGroup {
-  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions' | 'radio-noise' | 'features';
+  id: 'specs' | 'ratios' | 'measured-vs-claimed' | 'test-conditions' | 'radio-noise' | 'features' | 'ports';
   label: string;
   rows: CompareRow[];
 }

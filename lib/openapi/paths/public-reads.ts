@@ -103,7 +103,7 @@ const compareResponse = z
     items: z.array(gearSummary.pick({ slug: true, name: true, maker: true, category: true, kind: true, path: true, photo: true, price: true })),
     groups: z.array(
       z.object({
-        id: z.enum(['specs', 'ratios', 'measured-vs-claimed', 'test-conditions', 'radio-noise', 'features']),
+        id: z.enum(['specs', 'ratios', 'measured-vs-claimed', 'test-conditions', 'radio-noise', 'features', 'ports']),
         label: z.string(),
         rows: z.array(
           z.object({
