@@ -37,6 +37,7 @@ import { seedDemoPorts } from './ports';
 import { seedDemoPortOutput } from './port-output';
 import { seedDemoLongTermNotes } from './long-term-notes';
 import { seedDemoRadioNoise } from './radio-noise';
+import { seedDemoFeatures } from './features';
 
 export { DEMO_ACCOUNTS, DEMO_EMAIL_DOMAIN, DEMO_MAKERS, DEMO_PLACES, demoAccount, type DemoAccount } from './demo-data';
 
@@ -350,6 +351,7 @@ export async function seedDemo(db: Db): Promise<SeedResult> {
     inserted.trials += seedDemoPortOutput(tx, userId);
     seedDemoLongTermNotes(tx, userId);
     inserted.fieldTests += seedDemoRadioNoise(tx, userId);
+    seedDemoFeatures(tx);
 
     // Kits.
     for (const kit of DEMO_KITS) {

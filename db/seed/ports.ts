@@ -33,7 +33,8 @@ const usbAOut = (amps: number, efficiency = 0.88): DemoPort => ({ kind: 'usb-a',
 export const DEMO_PORTS: Readonly<Record<string, readonly DemoPort[]>> = {
   // Lights
   'glowmere-hearthglow-400': [usbCIn(2, 10), { ...usbAOut(1, 0.85), label: 'phone top-up' }],
-  'northcairn-tarn-collapsible-lantern': [usbCIn(2, 10)],
+  // Also serves as a power bank (db/seed/features.ts): a USB-A output for a phone top-up.
+  'northcairn-tarn-collapsible-lantern': [usbCIn(2, 10), { ...usbAOut(1, 0.85), label: 'phone top-up' }],
   'northcairn-fellbeam-350': [usbCIn(1, 5)],
   'glowmere-fernlight-180': [usbCIn(1, 5)],
   'glowmere-scree-600': [usbCIn(2, 10), { ...usbAOut(1, 0.85), label: 'on the battery box' }],
