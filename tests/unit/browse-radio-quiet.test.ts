@@ -4,6 +4,7 @@ import { sortOptions } from '@/components/browse/sort-options';
 import { parseGearListQuery } from '@/lib/browse/query';
 import { NOISE_RISE_SPEC, RADIO_QUIET_BELOW_DB, radioQuietRanges, radioQuietSpecKeys, rangeVerdicts } from '@/lib/browse/radio-quiet';
 import { AppError } from '@/lib/http/errors';
+import { buildOpenApiDocument } from '@/lib/openapi/document';
 import { RADIO_QUIET_THRESHOLDS_DB, sMeterToDbm, noiseRiseDb, SPECS } from '@/lib/measure';
 
 const parse = (query: string) => parseGearListQuery(new URLSearchParams(query));
@@ -93,5 +94,15 @@ describe('browse page wiring', () => {
     expect(keys('power-bank')).toContain('noiseRiseAbove30');
     // Measured-only: no "measured ÷ claimed" sort for them.
     expect(keys('power-bank')).not.toContain('measured-vs-claimed:noiseRiseBelow30');
+  });
+});
+
+describe('OpenAPI', () => {
+  it('documents radioQuiet on GET /api/v1/gear from the zod schema, with its three values', () => {
+    const doc = buildOpenApiDocument() as unknown as { paths: Record<string, { get: { parameters: { name: string; in: string; schema: { enum?: string[] }; description?: string }[] } }> };
+    const param = doc.paths['/api/v1/gear']!.get.parameters.find((p) => p.name === 'radioQuiet')!;
+    expect(param.in).toBe('query');
+    expect(param.schema.enum).toEqual(['below-30mhz', 'above-30mhz', 'both']);
+    expect(param.description).toContain('under 1 dB');
   });
 });
