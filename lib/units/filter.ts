@@ -24,11 +24,11 @@ function plain(value: number): string {
   return String(Number(value.toPrecision(DIGITS)));
 }
 
-const DECIMAL = /^\s*(?:\d+\.?\d*|\.\d+)\s*$/;
+const DECIMAL = /^\s*-?(?:\d+\.?\d*|\.\d+)\s*$/;
 
 /**
  * The API value of a typed filter figure: `text` in `typedUnit` as a decimal in `canonicalUnit`.
- * Blank stays null (no filter); text that is not a plain non-negative decimal is passed on as typed,
+ * Blank stays null (no filter); text that is not a plain decimal is passed on as typed,
  * so the API's 400 names the parameter rather than the browser silently dropping it.
  */
 export function typedToCanonical(text: string, typedUnit: string, canonicalUnit: string): string | null {
