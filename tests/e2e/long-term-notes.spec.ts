@@ -17,6 +17,7 @@ test.beforeAll(async ({ request }) => {
 });
 
 test('a reviewer adds a note to their own item and submits it; the editor approves it from the desk; a guest sees it in the timeline', async ({ browser }) => {
+  test.setTimeout(240_000); // three browsers and a send-back round on a shared 2-core machine
   const title = `Hinge webbing frayed at the fold ${Date.now().toString(36)}`;
   const day = new Date(Date.now() - 2 * 24 * 3600 * 1000).toISOString().slice(0, 10);
 
