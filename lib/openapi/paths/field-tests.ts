@@ -179,7 +179,8 @@ export function registerFieldTests(registry: OpenAPIRegistry): void {
     path: '/api/v1/field-tests/{id}/trials',
     tags: [TAG],
     summary: 'Add a trial of typed values',
-    description: 'For tests without a readings log, e.g. a scale reading: `{ "item": "…", "typedValues": { "mass": 428 } }` in canonical units.',
+    description:
+      'For tests without a readings log, e.g. a scale reading: `{ "item": "…", "typedValues": { "mass": 428 } }` in canonical units. A port-output test takes `{ "portNumber": 1, "portVolts": 19.84, "portAmps": 2.21, "loadAmps": 2.25 }` (port number as in the item’s Ports table; `loadAmps` optional); a port the item lacks, or an input, is 422.',
     security: SIGNED_IN,
     request: { params: testParams, body: { required: true, content: { 'application/json': { schema: typedTrialSchema } } } },
     responses: {
