@@ -23,11 +23,16 @@ db.transaction((tx) => {
     tx.insert(specs).values({ id: randomUUID(), gearItemId: id, key: 'mass', basis: 'claimed', value: mass }).run();
     if (i % 7 === 0) tx.insert(specs).values({ id: randomUUID(), gearItemId: id, key: 'mass', basis: 'measured', value: mass * 1.03 }).run();
     const key = category === 'light' ? 'luminousFlux' : category === 'power-bank' ? 'ratedEnergy' : 'ratedPower';
+    // Radio-noise checks on every 4th item: worst rises 0–11.9 dB below and 0–7.9 dB above 30 MHz (measured only).
+    if (i % 4 === 0) {
+      tx.insert(specs).values({ id: randomUUID(), gearItemId: id, key: 'noiseRiseBelow30', basis: 'measured', value: (i % 120) / 10 }).run();
+      tx.insert(specs).values({ id: randomUUID(), gearItemId: id, key: 'noiseRiseAbove30', basis: 'measured', value: (i % 80) / 10 }).run();
+    }
     if (i % 11 !== 0) tx.insert(specs).values({ id: randomUUID(), gearItemId: id, key, basis: 'claimed', value: 50 + ((i * 53) % 950) }).run();
   }
 });
 backfillGearRatios(db);
-const queries = ['', '?sort=mass', '?category=light&sort=lm-per-g', '?category=light&max.mass=300&sort=lm-per-g', '?sort=wh-per-money&currency=USD', '?q=glow&sort=mass&measured=only', '?sort=mass&limit=100'];
+const queries = ['', '?sort=mass', '?category=light&sort=lm-per-g', '?category=light&max.mass=300&sort=lm-per-g', '?sort=wh-per-money&currency=USD', '?q=glow&sort=mass&measured=only', '?sort=mass&limit=100', '?radioQuiet=both', '?category=power-bank&radioQuiet=below-30mhz&sort=mass', '?sort=noiseRiseBelow30'];
 for (const q of queries) {
   const query = parseGearListQuery(new URLSearchParams(q));
   listGear(db, query, null);
