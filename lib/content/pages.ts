@@ -15,7 +15,7 @@ export const CONTENT_PAGES = {
   },
   'how-we-test': {
     description:
-      'Claimed and measured figures, trials, runtime and beam distance, energy delivered, solar output, value ratios and the best-value line.',
+      'Claimed and measured figures, trials, runtime and beam distance, energy delivered, solar output, radio-noise checks, value ratios and the best-value line.',
   },
   safety: {
     description:
