@@ -89,7 +89,7 @@ function BandEcho({ index, control }: { index: number; control: Control<FormValu
   const verdict = radioQuietVerdict(f.riseDb);
   return (
     <p className="figure text-sm" data-testid="rn-echo">
-      {formatDb(f.baselineDbm)} dBm → {formatDb(f.withItemDbm)} dBm: rise <strong>{formatDb(f.riseDb)} dB</strong> ({verdict}: {RADIO_QUIET_WORDING[verdict]}).
+      {formatDb(f.baselineDbm)} dBm → {formatDb(f.withItemDbm)} dBm: rise <strong>{formatDb(f.riseDb)} dB</strong> — {verdict}, {RADIO_QUIET_WORDING[verdict]}.
     </p>
   );
 }
@@ -148,7 +148,7 @@ export function RadioNoiseEditor({ testId, items, defaults }: { testId: string; 
                   </select>
                 </div>
               ) : null}
-              <LabelledInput id={`rn-${i}-band`} label="Band" inputMode="text" placeholder="e.g. 40 m" error={errorAt(errors, `${p}.band`)} {...register(`${p}.band`)} />
+              <LabelledInput id={`rn-${i}-band`} label="Band" inputMode="text" placeholder="e.g. 40 m" className="" error={errorAt(errors, `${p}.band`)} {...register(`${p}.band`)} />
               <LabelledInput id={`rn-${i}-freq`} label="Frequency (MHz)" placeholder="e.g. 7.1" error={errorAt(errors, `${p}.frequencyMHz`)} {...register(`${p}.frequencyMHz`, asNumber)} />
               <div className="space-y-1">
                 <label htmlFor={`rn-${i}-mode`} className="block text-xs font-semibold">Mode</label>
@@ -159,7 +159,7 @@ export function RadioNoiseEditor({ testId, items, defaults }: { testId: string; 
               </div>
               <LabelledInput id={`rn-${i}-bw`} label="Receiver bandwidth (Hz)" placeholder="e.g. 2400" error={errorAt(errors, `${p}.bandwidthHz`)} {...register(`${p}.bandwidthHz`, asNumber)} />
               <LabelledInput id={`rn-${i}-dist`} label="Distance from the item (m)" placeholder="e.g. 1" error={errorAt(errors, `${p}.distanceM`)} {...register(`${p}.distanceM`, asNumber)} />
-              <LabelledInput id={`rn-${i}-ant`} label="Antenna notes" inputMode="text" placeholder="e.g. end-fed wire, 10 m" error={errorAt(errors, `${p}.antenna`)} {...register(`${p}.antenna`)} />
+              <LabelledInput id={`rn-${i}-ant`} label="Antenna notes" inputMode="text" placeholder="e.g. end-fed wire, 10 m" className="" error={errorAt(errors, `${p}.antenna`)} {...register(`${p}.antenna`)} />
             </div>
             <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
               <ReadingFields index={i} which="baseline" title="Baseline (reference supply)" control={control} register={register} errors={errors} />

@@ -81,6 +81,7 @@ export async function RadioNoiseSummary({ itemId, viewer }: { itemId: string; vi
                 <td className="px-3 py-2"><Verdict verdict={radioQuietVerdict(r.riseDb)} /></td>
                 <td className="px-3 py-2">
                   <Link className="underline" href={`/field-tests/${encodeURIComponent(r.fieldTestId)}`}>
+                    <span className="sr-only">Field test of </span>
                     {r.testedAt.toISOString().slice(0, 10)}
                   </Link>
                 </td>
