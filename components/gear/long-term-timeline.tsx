@@ -48,7 +48,7 @@ export async function LongTermTimeline({ item, viewer }: { item: Pick<GearItem, 
               </p>
               <h3 className="mt-1 font-semibold">{n.title}</h3>
               <NoteBody markdown={n.body} className="mt-1" />
-              <p className="text-xs text-slate">Noted by {n.authorName}</p>
+              <p className="mt-2 text-xs text-slate">Noted by {n.authorName}</p>
             </li>
           ))}
         </ol>
