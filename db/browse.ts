@@ -236,7 +236,10 @@ export function listGear(db: Db, query: GearListQuery, caller: Caller): GearList
     nextCursor,
     total,
     excludedOtherCurrency,
-    facets: { categories: CATEGORY_LIST.map((def) => ({ id: def.id, label: def.plural, count: facetCount.get(def.id) ?? 0 })) },
+    facets: {
+      categories: CATEGORY_LIST.map((def) => ({ id: def.id, label: def.plural, count: facetCount.get(def.id) ?? 0 })),
+      all: db.get<{ n: number }>(sql`SELECT count(*) AS n FROM gear_items g WHERE ${conditions(query, caller, { category: true })}`)?.n ?? 0,
+    },
   };
 }
 

@@ -66,7 +66,7 @@ export function BrowseView({ initial, units }: Props) {
   const first = query.data?.pages[0];
   const items = query.data?.pages.flatMap((p) => p.items) ?? [];
   const total = first?.total ?? 0;
-  const allCount = first?.facets.categories.reduce((n, c) => n + c.count, 0) ?? 0;
+  const allCount = first?.facets.all ?? first?.facets.categories.reduce((n, c) => n + c.count, 0) ?? 0;
   const error = serverError ?? (query.isError ? query.error.message : null);
 
   /** Sets one parameter; a money figure brings a currency with it (the API needs one). */

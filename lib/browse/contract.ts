@@ -60,7 +60,11 @@ export interface GearListResponse {
   /** Items left out because their price is in another currency than `currency` (0 when not filtering by money). */
   excludedOtherCurrency: number;
   /** Counts per category with every filter except `category` applied. */
-  facets: { categories: { id: string; label: string; count: number }[] };
+  facets: {
+    categories: { id: string; label: string; count: number }[];
+    /** Items matching every filter except `category`, each once (an item serving as two categories counts in both of those). */
+    all?: number;
+  };
 }
 
 export type RowDirection = 'higher' | 'lower' | null;

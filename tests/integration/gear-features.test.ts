@@ -236,7 +236,7 @@ describe('browse and the public API', () => {
 
   async function list(query: string) {
     const res = await GET_LIST(new Request(`${BASE}/api/v1/gear${query}`));
-    return { status: res.status, body: (await res.json()) as { items: { slug: string; alsoServesAs: string[]; features: { name: string; state: string; detail: string | null }[] }[]; total: number; facets: { categories: { id: string; count: number }[] }; error?: { message: string; fields: Record<string, string[]> } } };
+    return { status: res.status, body: (await res.json()) as { items: { slug: string; alsoServesAs: string[]; features: { name: string; state: string; detail: string | null }[] }[]; total: number; facets: { categories: { id: string; count: number }[]; all?: number }; error?: { message: string; fields: Record<string, string[]> } } };
   }
 
   it('category=power-bank includes items that also serve as a bank; facets count them under both', async () => {
@@ -249,6 +249,8 @@ describe('browse and the public API', () => {
     const facets = Object.fromEntries(banks.body.facets.categories.map((f) => [f.id, f.count]));
     // Lights: 3 approved lanterns; banks: 1 bank + 1 lantern serving as one; panels: 1.
     expect(facets).toMatchObject({ light: 3, 'power-bank': 2, 'solar-panel': 1, radio: 0 });
+    // Five items, each counted once under "all" although the bank lantern counts under two categories.
+    expect(banks.body.facets.all).toBe(5);
     expect((await list('?category=light')).body.total).toBe(3);
   });
 

@@ -84,6 +84,7 @@ const gearList = z
     total: z.number().int().meta({ description: 'Items matching every filter (all pages).' }),
     excludedOtherCurrency: z.number().int().meta({ description: 'Items left out because they are priced in another currency than `currency`.' }),
     facets: z.object({
+      all: z.number().int().optional().meta({ description: 'Items matching every filter except `category`, each counted once (multi-role items count under each of their categories).' }),
       categories: z.array(z.object({ id: z.string(), label: z.string(), count: z.number().int() })).meta({ description: 'Counts per category with every filter except `category`.' }),
     }),
   })
