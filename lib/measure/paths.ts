@@ -1,6 +1,7 @@
 import { assertRange, finiteResult, MeasureError } from './errors';
 import {
   fitValidatedPorts,
+  formatFigure,
   portKindLabel,
   SOLAR_LEAD_KINDS,
   validatePort,
@@ -592,8 +593,45 @@ function reasonsForNoPath(
   const unjoined = withOutputs
     .filter((s) => !found.reachedFrom.has(s.id) && !(s.role === 'source' && found.feedsStorage.has(s.id)))
     .map((s) => {
-      const ours = joinOr([...new Set(s.ports.filter(isOutput).map((p) => portKindLabel(p)))]);
-      return `no cable or adapter in the kit joins ${s.name}'s ${ours} to ${device.name}'s ${theirs}`;
+      const outputs = s.ports.filter(isOutput);
+      const ours = joinOr([...new Set(outputs.map((p) => portKindLabel(p)))]);
+      // A plain cable would do when one output's voltage suits one input once the plugs match;
+      // else the voltage is the problem and only a converting adapter would help.
+      if (outputs.some((o) => inputs.some((i) => cableWouldDo(o, i)))) {
+        return `no cable or adapter in the kit joins ${s.name}'s ${ours} to ${device.name}'s ${theirs}`;
+      }
+      return `${s.name}'s ${ours} ${outputs.length > 1 ? 'give' : 'gives'} ${joinOr([...new Set(outputs.map(voltsText))])}; ${device.name} needs ${joinOr(inputs.map(needText))}: that takes an adapter that converts the voltage, not just a cable`;
     });
   return [...found.electrical, ...unjoined].slice(0, MAX_REASONS);
+}
+
+/** Whether the output's voltage and current would suit the input if a cable matched the plugs. */
+function cableWouldDo(output: Port, input: Port): boolean {
+  if (input.kind === 'mains-input' || input.kind === 'solar-input') return true;
+  const asIfJoined: Port = { ...output, kind: input.kind };
+  if (input.label !== undefined) asIfJoined.label = input.label;
+  else delete asIfJoined.label;
+  // USB PD profiles travel only over USB-C; on another plug the output keeps its plain voltage.
+  if (asIfJoined.pdProfiles && input.kind !== 'usb-c') {
+    delete asIfJoined.pdProfiles;
+    asIfJoined.volts = output.volts ?? 5;
+  }
+  const f = fitValidatedPorts(asIfJoined, input);
+  return f.fits || f.problem === 'current';
+}
+
+/** "5 V", "5/9/20 V (USB PD)", "an unstated voltage". */
+function voltsText(port: Port): string {
+  if (port.pdProfiles?.length) return `${[...new Set(port.pdProfiles.map((p) => formatFigure(p.volts)))].join('/')} V (USB PD)`;
+  const v = port.volts ?? (port.kind === 'usb-a' || port.kind === 'usb-c' ? 5 : port.kind === 'socket-12v' ? 12 : undefined);
+  return v === undefined ? 'an unstated voltage' : `${formatFigure(v)} V`;
+}
+
+/** "11.7–15.2 V at its genderless DC connector", "20 V at 2.25 A over USB-C". */
+function needText(port: Port): string {
+  if (port.pdProfiles?.length) return `${port.pdProfiles.map((p) => `${formatFigure(p.volts)} V at ${formatFigure(p.amps)} A`).join(' or ')} over USB-C`;
+  const at = `at its ${portKindLabel(port)}`;
+  if (port.voltageWindow) return `${formatFigure(port.voltageWindow.minVolts)}–${formatFigure(port.voltageWindow.maxVolts)} V ${at}`;
+  const v = port.volts ?? (port.kind === 'usb-a' || port.kind === 'usb-c' ? 5 : port.kind === 'socket-12v' ? 12 : undefined);
+  return v === undefined ? `power ${at}` : `${formatFigure(v)} V ${at}`;
 }

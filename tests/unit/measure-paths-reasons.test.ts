@@ -68,7 +68,19 @@ describe('findChargingPaths: every distinct reason', () => {
     expect(d.reasons).toEqual([
       // Needs 20 V × 2.25 A = 45 W (the 15 V 3 A SPR level's power, at 20 V); the bank's top profile is 9 V × 2 A = 18 W.
       'Laptop needs 20 V at 2.25 A over USB-C; Bank offers at most 9 V at 2 A',
-      "no cable or adapter in the kit joins Battery's 12 V socket to Laptop's USB-C",
+      // 12.8 V from a 12 V socket is no USB PD level at all: a cable alone cannot help, a converting adapter can.
+      "Battery's 12 V socket gives 12.8 V; Laptop needs 20 V at 2.25 A over USB-C: that takes an adapter that converts the voltage, not just a cable",
+    ]);
+  });
+
+  it('a 5 V USB source and a 13.8 V radio: the voltage is the reason, not a missing cable', () => {
+    const lanternBank: KitPowerItem = { id: 'lantern', name: 'Lantern', role: 'storage', ports: [{ kind: 'usb-a', direction: 'output', volts: 5, amps: 1 }] };
+    const d = reasonsOf([lanternBank, { ...battery, ports: [battery.ports![1]!] }, radio], 'radio');
+    expect(d.reasons).toEqual([
+      // 5 V is far below 11.73 V.
+      "Lantern's USB-A gives 5 V; Radio needs 11.73–15.87 V at its genderless DC connector: that takes an adapter that converts the voltage, not just a cable",
+      // 12.8 V lies inside 11.73–15.87 V: a socket-to-genderless lead would do.
+      "no cable or adapter in the kit joins Battery's 12 V socket to Radio's genderless DC connector",
     ]);
   });
 
