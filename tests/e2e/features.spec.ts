@@ -95,3 +95,44 @@ test.describe('side-by-side', () => {
     await page.screenshot({ path: 'test-results/features-side-by-side.png' });
   });
 });
+
+test('a reviewer records a lantern that also serves as a power bank: the form asks for the bank’s figures and the checklist of both', async ({ browser }) => {
+  const reviewer = await browser.newContext({ storageState: storageStateFor('reviewer') });
+  const page = await reviewer.newPage();
+  const name = `Role Lantern ${Date.now().toString(36)}`;
+  await page.goto('/logbook/gear/new');
+  await page.locator('#gear-category').selectOption('light');
+  await page.locator('#gear-kind').selectOption('lantern');
+  await page.locator('#gear-name').fill(name);
+  await page.locator('#gear-maker').fill('Glowmere');
+  await page.locator('#spec-mass').fill('380 g');
+  await page.locator('#spec-luminousFlux').fill('350 lm');
+  // A light alone has no bank figures or bank features.
+  await expect(page.locator('#spec-rechargePower')).toHaveCount(0);
+  await expect(page.locator('#feature-output-12v')).toHaveCount(0);
+
+  await page.getByRole('group', { name: 'Also serves as' }).getByRole('checkbox', { name: 'Power bank' }).check();
+  await expect(page.getByLabel('Recharge input power (as power bank)')).toBeVisible();
+  await expect(page.getByLabel('Battery energy (required)')).toBeVisible();
+  await page.locator('#feature-red-mode').selectOption('yes');
+  await page.locator('#feature-hanging-hook').selectOption('yes');
+  await page.locator('#feature-hanging-hook-detail').fill('steel wire');
+  await page.locator('#feature-output-12v').selectOption('no');
+  await page.screenshot({ path: 'test-results/features-form.png', fullPage: true });
+
+  // Without the rated energy a bank role is refused, the field named; nothing is saved.
+  await page.getByRole('button', { name: 'Save draft' }).click();
+  await expect(page.getByTestId('spec-ratedEnergy-error')).toContainText('required for a light serving as power bank');
+  await page.locator('#spec-ratedEnergy').fill('5000 mAh at 3.7 V');
+  await page.locator('#gear-chemistry').selectOption('li-ion');
+  await page.getByRole('button', { name: 'Save draft' }).click();
+
+  await page.waitForURL(/\/gear\/glowmere-role-lantern-/);
+  await expect(page.getByTestId('also-serves-as')).toHaveText('Also serves as a power bank');
+  // 5 Ah × 3.7 V = 18.5 Wh (Wh = Ah × V, 49 CFR 171.8).
+  await expect(page.getByTestId('role-power-bank').getByTestId('role-spec-ratedEnergy')).toContainText('18.5 Wh');
+  await expect(page.getByTestId('feature-hanging-hook')).toContainText('hook material: steel wire');
+  await expect(page.getByTestId('feature-output-12v')).toContainText('Has not');
+  await expect(page.getByTestId('feature-magnet')).toContainText('Not stated');
+  await reviewer.close();
+});
