@@ -41,7 +41,7 @@ export function RadioNoiseResults({ data, items }: { data: TestRadioNoise; items
                 const worst = summary.byRange[range];
                 return worst ? (
                   <li key={range}>
-                    <strong>{item.name}, {RANGE_LABELS[range].toLowerCase()}:</strong> {worst.verdict} — {RADIO_QUIET_WORDING[worst.verdict]}; worst band {worst.worstBand}, {formatDb(worst.worstRiseDb)} dB.
+                    <strong>{item.name}, {RANGE_LABELS[range]}:</strong> {worst.verdict} — {RADIO_QUIET_WORDING[worst.verdict]}; worst band {worst.worstBand}, {formatDb(worst.worstRiseDb)} dB.
                   </li>
                 ) : null;
               })}
@@ -65,10 +65,10 @@ export function RadioNoiseResults({ data, items }: { data: TestRadioNoise; items
                     <tr key={r.id} className="border-t border-rule">
                       <th scope="row" className="px-3 py-2 font-semibold">{r.band}</th>
                       <td className="figure px-3 py-2">{formatNumber(r.frequencyMHz)} MHz · {RADIO_MODE_LABELS[r.mode]} · {formatBandwidth(r.bandwidthHz)}</td>
-                      <td className="px-3 py-2">{r.antenna || '—'}; {formatNumber(r.distanceM)} m</td>
-                      <td className="figure px-3 py-2">{formatMeterReading(r.baseline)}{r.baseline.scale === 's-meter' ? <span className="text-slate"> ({formatDb(r.baselineDbm)} dBm)</span> : null}</td>
-                      <td className="figure px-3 py-2">{formatMeterReading(r.withItem)}{r.withItem.scale === 's-meter' ? <span className="text-slate"> ({formatDb(r.withItemDbm)} dBm)</span> : null}</td>
-                      <td className="figure px-3 py-2 font-semibold">{formatDb(r.riseDb)} dB</td>
+                      <td className="px-3 py-2">{r.antenna || 'Antenna not noted'}; {formatNumber(r.distanceM)} m away</td>
+                      <td className="figure whitespace-nowrap px-3 py-2">{formatMeterReading(r.baseline)}{r.baseline.scale === 's-meter' ? <span className="block text-xs text-slate">{formatDb(r.baselineDbm)} dBm</span> : null}</td>
+                      <td className="figure whitespace-nowrap px-3 py-2">{formatMeterReading(r.withItem)}{r.withItem.scale === 's-meter' ? <span className="block text-xs text-slate">{formatDb(r.withItemDbm)} dBm</span> : null}</td>
+                      <td className="figure whitespace-nowrap px-3 py-2 font-semibold">{formatDb(r.riseDb)} dB</td>
                       <td className="px-3 py-2">{r.verdict}</td>
                     </tr>
                   ))}
