@@ -84,47 +84,47 @@ export function PortsList({ ports, measured = [] }: { ports: readonly PortClaim[
             {ports.map((p, i) => {
               const m = measuredFor(p, i, measured);
               return (
-              <tr key={i} className="border-t border-rule align-top" data-testid={`port-row-${i}`}>
-                <td className="px-3 py-2 figure font-mono text-slate">{i + 1}</td>
-                <th scope="row" className="px-3 py-2">
-                  <span className="font-semibold">{capitalised(portKindLabel(p))}</span>
-                  {p.label && p.kind !== 'other' ? <span className="block text-xs text-slate">{p.label}</span> : null}
-                  <span className="block text-xs font-normal text-slate">{PORT_KIND_HINTS[p.kind]}</span>
-                </th>
-                <td className="px-3 py-2">{PORT_DIRECTION_LABELS[p.direction]}</td>
-                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.volts, 'V')}</td>
-                <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.amps, 'A')}</td>
-                <td className="whitespace-nowrap px-3 py-2 figure font-mono">
-                  {figure(p.watts, 'W')}
-                  {m?.watts != null ? <span className="block text-xs font-semibold text-lichen-dark">{formatFigure(m.watts)} W measured</span> : null}
-                </td>
-                <td className="px-3 py-2">
-                  <ul className="space-y-1">
-                    {p.pdProfiles?.length ? (
-                      <li data-testid={`port-row-${i}-pd`}>
-                        <span className="text-slate">USB Power Delivery: </span>
-                        <span className="figure font-mono">{formatPdProfiles(p.pdProfiles)}</span>
-                      </li>
-                    ) : null}
-                    {p.voltageWindow ? (
-                      <li>
-                        <span className="text-slate">Accepts </span>
-                        <span className="figure font-mono">
-                          {formatFigure(p.voltageWindow.minVolts)}–{formatFigure(p.voltageWindow.maxVolts)} V
-                        </span>
-                      </li>
-                    ) : null}
-                    {p.efficiency !== undefined ? (
-                      <li>
-                        <span className="text-slate">Conversion efficiency </span>
-                        <span className="figure font-mono">{formatFigure(p.efficiency * 100)} %</span>
-                      </li>
-                    ) : null}
-                    <li className="text-xs text-slate">Claimed · {CLAIM_SOURCE_LABELS[p.source] ?? p.source}</li>
-                    {m ? <MeasuredFigure m={m} index={i} /> : null}
-                  </ul>
-                </td>
-              </tr>
+                <tr key={i} className="border-t border-rule align-top" data-testid={`port-row-${i}`}>
+                  <td className="px-3 py-2 figure font-mono text-slate">{i + 1}</td>
+                  <th scope="row" className="px-3 py-2">
+                    <span className="font-semibold">{capitalised(portKindLabel(p))}</span>
+                    {p.label && p.kind !== 'other' ? <span className="block text-xs text-slate">{p.label}</span> : null}
+                    <span className="block text-xs font-normal text-slate">{PORT_KIND_HINTS[p.kind]}</span>
+                  </th>
+                  <td className="px-3 py-2">{PORT_DIRECTION_LABELS[p.direction]}</td>
+                  <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.volts, 'V')}</td>
+                  <td className="whitespace-nowrap px-3 py-2 figure font-mono">{figure(p.amps, 'A')}</td>
+                  <td className="whitespace-nowrap px-3 py-2 figure font-mono">
+                    {figure(p.watts, 'W')}
+                    {m?.watts != null ? <span className="block text-xs font-semibold text-lichen-dark">{formatFigure(m.watts)} W measured</span> : null}
+                  </td>
+                  <td className="px-3 py-2">
+                    <ul className="space-y-1">
+                      {p.pdProfiles?.length ? (
+                        <li data-testid={`port-row-${i}-pd`}>
+                          <span className="text-slate">USB Power Delivery: </span>
+                          <span className="figure font-mono">{formatPdProfiles(p.pdProfiles)}</span>
+                        </li>
+                      ) : null}
+                      {p.voltageWindow ? (
+                        <li>
+                          <span className="text-slate">Accepts </span>
+                          <span className="figure font-mono">
+                            {formatFigure(p.voltageWindow.minVolts)}–{formatFigure(p.voltageWindow.maxVolts)} V
+                          </span>
+                        </li>
+                      ) : null}
+                      {p.efficiency !== undefined ? (
+                        <li>
+                          <span className="text-slate">Conversion efficiency </span>
+                          <span className="figure font-mono">{formatFigure(p.efficiency * 100)} %</span>
+                        </li>
+                      ) : null}
+                      <li className="text-xs text-slate">Claimed · {CLAIM_SOURCE_LABELS[p.source] ?? p.source}</li>
+                      {m ? <MeasuredFigure m={m} index={i} /> : null}
+                    </ul>
+                  </td>
+                </tr>
               );
             })}
           </tbody>

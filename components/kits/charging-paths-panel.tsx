@@ -122,8 +122,9 @@ function DevicePaths({ device }: { device: KitDevicePaths }) {
             </dl>
           ) : null}
           <p className="mt-2 text-xs text-slate">
-            To fix it, add a cable or adapter that turns what the kit offers into what the device needs (for example a 12 V socket to USB-C charger
-            for a laptop), or a battery or bank with the right port.
+            To fix it, follow the reasons: where only the plugs differ, a lead that joins them is enough (fused close to the battery for 12 V); where
+            the voltage differs, it takes an adapter that converts it (for example a 12 V socket to USB-C charger for a laptop); or add a battery or
+            bank with the right port.
           </p>
         </>
       )}
