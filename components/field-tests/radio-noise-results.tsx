@@ -41,7 +41,7 @@ export function RadioNoiseResults({ data, items }: { data: TestRadioNoise; items
                 const worst = summary.byRange[range];
                 return worst ? (
                   <li key={range}>
-                    <strong>{item.name}, {RANGE_LABELS[range]}:</strong> {worst.verdict} — {RADIO_QUIET_WORDING[worst.verdict]}; worst band {worst.worstBand}, {formatDb(worst.worstRiseDb)} dB.
+                    <strong>{item.name}, {RANGE_LABELS[range].replace(/^B|^A/, (c) => c.toLowerCase())}:</strong> {worst.verdict} — {RADIO_QUIET_WORDING[worst.verdict]}; worst band {worst.worstBand}, {formatDb(worst.worstRiseDb)} dB.
                   </li>
                 ) : null;
               })}

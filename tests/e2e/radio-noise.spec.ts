@@ -98,3 +98,18 @@ test('a reviewer records a radio-noise check of a bank on two bands; an editor a
 
   await Promise.all([reviewer.close(), anonymous.close(), editorContext.close()]);
 });
+
+test('the demo bank’s radio-noise section reads per range and per band (demo data: db/seed/radio-noise.ts)', async ({ browser }, testInfo) => {
+  const anonymous = await browser.newContext();
+  const page = await anonymous.newPage();
+  await page.goto('/gear/voltmoth-cellhive-20');
+  const section = page.getByTestId('radio-noise-summary');
+  // 80 m: S4 → S6 is two S-units, 12 dB (IARU Region 1 Rec. R.1: 6 dB per S-unit); above 30 MHz the worst is 2 m, 0.5 dB.
+  await expect(section.getByTestId('radio-noise-ranges')).toContainText('Worst band: 80 m, 12 dB (4 bands checked)');
+  await expect(section.getByTestId('radio-noise-ranges')).toContainText('Worst band: 2 m, 0.5 dB (2 bands checked)');
+  await expect(section.getByTestId('radio-noise-bands').locator('tbody tr')).toHaveCount(6);
+  await expect(section.locator('tr[data-band="80 m"]')).toContainText('Noisy');
+  await expect(section.locator('tr[data-band="70 cm"]')).toContainText('Quiet');
+  await section.screenshot({ path: testInfo.outputPath('radio-noise-demo-bank.png') });
+  await anonymous.close();
+});
