@@ -396,7 +396,7 @@ export function transitionFieldTest(db: Db, actor: Actor, id: string, action: Fi
         const { analysis } = analyzeStoredTest(tx, test, items, list);
         const problem = readinessProblem(test, items, list, analysis) ?? (test.kind === PORT_OUTPUT_KIND ? portOutputReadinessProblem(tx, items, list) : null);
         if (problem) throw new AppError('invalid', problem);
-        if (action === 'approve') measured = applyMeasuredSpecs(tx, actor, test, items, analysis, now) + (test.kind === PORT_OUTPUT_KIND ? applyMeasuredPorts(tx, test, analysis, now) : 0);
+        if (action === 'approve') measured = applyMeasuredSpecs(tx, actor, test, items, analysis, now) + (test.kind === PORT_OUTPUT_KIND ? applyMeasuredPorts(tx, test, analysis, now, actor.id) : 0);
       }
       tx.update(fieldTests)
         .set({ status: to, updatedAt: now, ...(action === 'approve' && { approvedAt: now }) })

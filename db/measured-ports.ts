@@ -11,11 +11,11 @@ import { randomUUID } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
 import type { Q, Tx } from './field-tests-access';
 import { livePortsOf } from './gear-ports';
-import { fieldTests, gearPorts, type FieldTest, type GearItem, type Trial } from './schema';
+import { fieldTests, gearFigureNotes, gearItems, gearPorts, type FieldTest, type GearItem, type Trial } from './schema';
 import { AppError } from '@/lib/http/errors';
 import type { FieldTestAnalysis } from '@/lib/field-tests/analysis';
 import { measuredPortFigures, portOutputMismatch, portOutputReading, publicPorts, type PublicPort } from '@/lib/field-tests/port-output';
-import { MeasureError, PORT_KINDS, type PortDirection, type PortKind } from '@/lib/measure';
+import { formatFigure, MeasureError, portKindLabel, PORT_KINDS, type PortDirection, type PortKind } from '@/lib/measure';
 
 export const PORT_OUTPUT_KIND = 'port-output';
 
@@ -59,16 +59,18 @@ export function portOutputReadinessProblem(db: Q, items: readonly GearItem[], li
  * amps and watts over its trials, beside the claimed port (same position, kind, direction and label).
  * A row from a test carried out later is kept. Returns the rows written.
  */
-export function applyMeasuredPorts(tx: Tx, test: FieldTest, analysis: FieldTestAnalysis, at: Date): number {
+export function applyMeasuredPorts(tx: Tx, test: FieldTest, analysis: FieldTestAnalysis, at: Date, approvedById: string | null = null): number {
   let written = 0;
   for (const { itemId, summaries } of analysis.items) {
     const claimed = livePortsOf(tx, itemId);
+    const item = tx.select({ approvedAt: gearItems.approvedAt }).from(gearItems).where(eq(gearItems.id, itemId)).get();
+    const changes: string[] = [];
     for (const m of measuredPortFigures(summaries)) {
       const position = m.portNumber - 1;
       const port = claimed[position];
       if (!port || port.direction === 'input') continue; // refused earlier by portOutputReadinessProblem
       const current = tx
-        .select({ fieldTestId: gearPorts.fieldTestId, testedAt: fieldTests.testedAt, approvedAt: fieldTests.approvedAt })
+        .select({ fieldTestId: gearPorts.fieldTestId, watts: gearPorts.watts, testedAt: fieldTests.testedAt, approvedAt: fieldTests.approvedAt })
         .from(gearPorts)
         .leftJoin(fieldTests, eq(fieldTests.id, gearPorts.fieldTestId))
         .where(and(eq(gearPorts.gearItemId, itemId), eq(gearPorts.basis, 'measured'), eq(gearPorts.position, position)))
@@ -94,6 +96,15 @@ export function applyMeasuredPorts(tx: Tx, test: FieldTest, analysis: FieldTestA
         .onConflictDoUpdate({ target: [gearPorts.gearItemId, gearPorts.basis, gearPorts.position], set: figures })
         .run();
       written += 1;
+      // A public item whose measured figure changes gets a dated "figures updated" note, as for measured specs.
+      if (item?.approvedAt && current?.watts != null && formatFigure(current.watts) !== formatFigure(m.watts)) {
+        changes.push(`${portKindLabel(port)} ${port.direction === 'both' ? 'port' : 'output'} (port ${m.portNumber}), measured: ${formatFigure(current.watts)} W → ${formatFigure(m.watts)} W`);
+      }
+    }
+    if (changes.length) {
+      tx.insert(gearFigureNotes)
+        .values({ gearItemId: itemId, note: `From the field test of ${test.testedAt.toISOString().slice(0, 10)}.`, summary: changes.join('; '), approvedById, createdAt: at })
+        .run();
     }
   }
   return written;

@@ -4,7 +4,7 @@ import { and, eq } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
 import type { Actor } from '@/db/gear';
-import { gearItems, gearPorts, trials } from '@/db/schema';
+import { gearFigureNotes, gearItems, gearPorts, trials } from '@/db/schema';
 import { createUser } from '@/db/users';
 import { claimedPortRow } from '@/db/gear-ports';
 import { measuredPortsOf } from '@/db/measured-ports';
@@ -108,6 +108,21 @@ describe('port-output tests', () => {
     const measured = portRows().filter((r) => r.basis === 'measured');
     expect(measured).toHaveLength(1);
     expect(measured[0]).toMatchObject({ watts: 27, fieldTestId: later });
+    expect(db.select().from(gearFigureNotes).all()).toEqual([]); // nothing changed on the public item
+  });
+
+  it('a later test that changes a public item’s measured watts leaves a dated "figures updated" note', async () => {
+    const first = await newTest();
+    await addTrial(first, { portNumber: 1, portVolts: 9, portAmps: 3 }); // 27 W
+    await act(author, first, 'submit');
+    await act(editor, first, 'approve');
+    const second = (await body(await handleCreateFieldTest(db, author, json('POST', '/api/v1/field-tests', { ...record, testedAt: '2026-11-20T10:00' })))).fieldTest.id as string;
+    await addTrial(second, { portNumber: 1, portVolts: 8.9, portAmps: 2.8 }); // 24.92 W
+    await act(author, second, 'submit');
+    await act(editor, second, 'approve');
+    expect(db.select().from(gearFigureNotes).all().map((n) => [n.summary, n.note])).toEqual([
+      ['USB-C output (port 1), measured: 27 W → 24.92 W', 'From the field test of 2026-11-20.'],
+    ]);
   });
 
   it('a port the item lacks, or an input, is a 422 naming the typed values; nothing is stored', async () => {
