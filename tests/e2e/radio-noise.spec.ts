@@ -1,3 +1,4 @@
+import AxeBuilder from '@axe-core/playwright';
 import { expect, test } from '@playwright/test';
 import { resetRateLimits, storageStateFor } from './support';
 
@@ -59,6 +60,8 @@ test('a reviewer records a radio-noise check of a bank on two bands; an editor a
   await page.locator('#rn-1-withItem-dbm').fill('-121');
   await expect(editor.getByTestId('rn-echo').nth(1)).toContainText('rise 3 dB — slight');
   await editor.screenshot({ path: testInfo.outputPath('radio-noise-form.png') });
+  const formAxe = await new AxeBuilder({ page }).include('[data-testid="rn-editor"]').analyze();
+  expect(formAxe.violations.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
   await editor.getByRole('button', { name: 'Save the band readings' }).click();
   await expect(page.getByTestId('rn-message')).toHaveText('Saved 2 band readings.');
   await expect(page.getByTestId('rn-test-table')).toContainText('12 dB');
@@ -93,6 +96,8 @@ test('a reviewer records a radio-noise check of a bank on two bands; an editor a
   await expect(bands.locator('tr[data-band="2 m"]')).toContainText('FM');
   await expect(section.locator('a[href="/how-we-test#radio-noise"]')).toBeVisible();
   await section.screenshot({ path: testInfo.outputPath('radio-noise-item.png') });
+  const sectionAxe = await new AxeBuilder({ page: itemPage }).include('[data-testid="radio-noise-summary"]').analyze();
+  expect(sectionAxe.violations.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
   await bands.locator(`a[href="/field-tests/${id}"]`).first().click();
   await expect(itemPage).toHaveURL(new RegExp(`/field-tests/${id}$`));
 
