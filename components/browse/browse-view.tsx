@@ -273,7 +273,7 @@ export function BrowseView({ initial, units }: Props) {
             ? ''
             : query.isPending
               ? 'Loading gear…'
-              : `${total} ${total === 1 ? 'item' : 'items'}${sort ? `, by ${sort.label.toLowerCase()}` : ''}${
+              : `${total} ${total === 1 ? 'item' : 'items'}${sort ? `, by ${sort.label.charAt(0).toLowerCase()}${sort.label.slice(1)}` : ''}${
                   first && first.excludedOtherCurrency > 0 ? ` · ${first.excludedOtherCurrency} priced in other currencies left out` : ''
                 }`}
         </p>

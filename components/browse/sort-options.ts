@@ -34,8 +34,14 @@ function unitOf(key: string, currency: string | null): string {
   return RATIO_UNITS[key] ?? '';
 }
 
+/** Shorter labels where a spec's own label is too long for the sort menu. */
+const SORT_LABELS: Record<string, string> = {
+  noiseRiseBelow30: 'Radio noise rise below 30 MHz',
+  noiseRiseAbove30: 'Radio noise rise above 30 MHz',
+};
+
 export function sortOptions(category: string | null, currency: string | null): SortOption[] {
-  const option = (key: string, label: string): SortOption => ({ key, label, unit: unitOf(key, currency), money: isMoneyKey(key) });
+  const option = (key: string, label: string): SortOption => ({ key, label: SORT_LABELS[key] ?? label, unit: unitOf(key, currency), money: isMoneyKey(key) });
   if (!category || !isCategory(category)) {
     // Noise rises are measured on anything powered, so they sort across categories too (items never checked come last).
     return [option('mass', SPECS.mass.label), option('price', 'Price paid'), option('noiseRiseBelow30', SPECS.noiseRiseBelow30.label), option('noiseRiseAbove30', SPECS.noiseRiseAbove30.label)];

@@ -106,3 +106,10 @@ describe('OpenAPI', () => {
     expect(param.description).toContain('under 1 dB');
   });
 });
+
+describe('sort menu labels', () => {
+  it('are short enough for the menu and keep MHz in capitals', () => {
+    const labels = sortOptions('power-bank', null).filter((o) => o.key.startsWith('noiseRise')).map((o) => o.label);
+    expect(labels).toEqual(['Radio noise rise below 30 MHz', 'Radio noise rise above 30 MHz']);
+  });
+});
