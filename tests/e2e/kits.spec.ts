@@ -8,12 +8,13 @@ import { demoAccount, resetRateLimits, storageStateFor } from './support';
  *     (claimed 11.84 W transmit, 0.518 W receive) and listening the other 90 %    → 0.518 × 8 × 0.9 = 3.7296 Wh
  *   - a laptop charged daily, typed as 60 W for 1.5 h                             → 60 × 1.5        = 90 Wh
  *   daily load 118.4016 Wh; drawn from storage ÷ 0.9 (default, common practice)   = 131.557 Wh
- *   - Dunlow Campcore 20 LiFePO4, 256 Wh: depth 0.8 (common practice, no source) → usable 204.8 Wh, floor 51.2 Wh
+ *   - Dunlow Campcore 20 LiFePO4, 256 Wh, and the lantern, which also serves as a power bank (19.24 Wh Li-ion):
+ *     depth 0.8 (common practice, no source) → capacity 275.24 Wh, usable 220.192 Wh, floor 55.048 Wh
  *   - Brackenfold Heathray 60 panel, 60 W, 4 clear-day peak sun hours, overcast: the sky share comes from the
  *     demo's paired clear/overcast field tests, about 0.17 ÷ 0.76 ≈ 0.22; losses 0.14 (PVWatts v5 default).
  *     For any sky share s in 0.2–0.25: solar 60 × 4 × s × 0.86 = 41.3–51.6 Wh; net −90.3 to −80.0 Wh a day.
- *   Day 2: 256 − 2 × 90.3 = 75.4 Wh or more, above the 51.2 Wh floor; day 3: 256 − 3 × 80.0 = 16.1 Wh or less → fails on day 3.
- *   A second panel doubles solar (82.6–103.2 Wh): net −49.0 to −28.4 Wh; day 3 ≥ 256 − 3 × 49.0 = 109 Wh → closes.
+ *   Day 2: 275.24 − 2 × 90.3 = 94.64 Wh or more, above the 55.048 Wh floor; day 3: 275.24 − 3 × 80.0 = 35.24 Wh or less → fails on day 3.
+ *   A second panel doubles solar (82.6–103.2 Wh): net −49.0 to −28.4 Wh; day 3 ≥ 275.24 − 3 × 49.0 = 128.24 Wh → closes.
  */
 
 async function addItem(page: Page, label: string) {
