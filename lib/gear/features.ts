@@ -172,6 +172,10 @@ export const featuresField = z
     }
     if (Object.keys(answers).length > FEATURE_NAMES.length) ctx.addIssue({ code: 'custom', message: 'Too many features.' });
   })
+  .meta({
+    description:
+      'Feature checklist answers by feature name: `true` (has it), `false` (has not), `null` or absent (not stated), or `{ present, detail }` for a feature that takes a detail (a hanging hook’s material). Names must be on the checklist of the item’s primary or also-serves categories; `ip-rating` comes from `waterRating` and is never stated here.',
+  })
   .transform((answers): FeatureClaim[] => {
     const out: FeatureClaim[] = [];
     for (const name of FEATURE_NAMES) {

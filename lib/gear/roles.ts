@@ -20,7 +20,11 @@ export const alsoServesAsField = z
   .array(z.enum(SECONDARY_ROLES as [Category, ...Category[]], { error: `Choose categories from: ${SECONDARY_ROLES.join(', ')}.` }), {
     error: 'Give the other categories as a list of category ids.',
   })
-  .max(MAX_ALSO_SERVES, `Choose at most ${MAX_ALSO_SERVES} other categories.`);
+  .max(MAX_ALSO_SERVES, `Choose at most ${MAX_ALSO_SERVES} other categories.`)
+  .meta({
+    description:
+      'Other categories the item also serves as (a lantern with a USB output also serves as a `power-bank`), never its primary one. Their specs may then be claimed (and their required specs must be), and their feature checklists apply.',
+  });
 
 /** The also-serves categories of stored data, keeping only known ids other than the primary, without repeats. */
 export function cleanAlsoServes(primary: string, stored: unknown): Category[] {
