@@ -82,7 +82,8 @@ function entered(scale: 's-meter' | 'dbm', sUnits: number | null, dbOverS9: numb
   return scale === 'dbm' ? { scale: 'dbm', dbm } : { scale: 's-meter', sUnits: sUnits ?? 0, dbOverS9: dbOverS9 ?? 0 };
 }
 
-const riseOf = (r: Pick<RadioNoiseReading, 'baselineDbm' | 'withItemDbm'>) => r.withItemDbm - r.baselineDbm;
+/** Rounded to 0.01 dB so a rise such as −112.3 − (−113.1) is stored as 0.8, not 0.7999999999999972. */
+const riseOf = (r: Pick<RadioNoiseReading, 'baselineDbm' | 'withItemDbm'>) => Math.round((r.withItemDbm - r.baselineDbm) * 100) / 100;
 
 function rowsOfTest(db: Q, testId: string): RadioNoiseReading[] {
   return db.select().from(radioNoiseReadings).where(eq(radioNoiseReadings.fieldTestId, testId)).orderBy(asc(radioNoiseReadings.position)).all();

@@ -27,7 +27,7 @@ export function RadioNoiseResults({ data, items }: { data: TestRadioNoise; items
       <h2 id="rn-results" className="text-xl font-semibold">Band readings</h2>
       <p className="text-sm">
         Each row is one band: the receiver’s noise floor on a quiet reference supply, then with the item. The <strong>rise</strong> is the difference in dB;
-        6 dB is one S-unit. <Link className="text-lichen underline" href="/how-we-test#radio-noise">How we test radio noise</Link>
+        6 dB is one S-unit. <Link className="text-lichen underline" href="/how-we-test#user-content-radio-noise">How we test radio noise</Link>
       </p>
       {data.readings.length === 0 ? <p className="text-sm text-slate">No band readings yet.</p> : null}
       {items.map((item) => {

@@ -30,7 +30,7 @@ export async function RadioNoiseSummary({ itemId, viewer }: { itemId: string; vi
         We listened to a radio receiver’s background hiss on each band, first with the radio on a quiet battery and then with this item powering it or
         running close by. The <strong>rise</strong> is how much louder the hiss got, in decibels (dB): 6 dB is one step (S-unit) on the radio’s signal meter,
         and a rise that large can bury weak stations.{' '}
-        <Link className="text-lichen underline" href="/how-we-test#radio-noise">
+        <Link className="text-lichen underline" href="/how-we-test#user-content-radio-noise">
           How we test radio noise
         </Link>
       </p>

@@ -94,7 +94,7 @@ test('a reviewer records a radio-noise check of a bank on two bands; an editor a
   await expect(bands.locator('tr[data-band="40 m"]')).toContainText('12 dB');
   await expect(bands.locator('tr[data-band="2 m"]')).toContainText('3 dB');
   await expect(bands.locator('tr[data-band="2 m"]')).toContainText('FM');
-  await expect(section.locator('a[href="/how-we-test#radio-noise"]')).toBeVisible();
+  await expect(section.locator('a[href="/how-we-test#user-content-radio-noise"]')).toBeVisible();
   await section.screenshot({ path: testInfo.outputPath('radio-noise-item.png') });
   const sectionAxe = await new AxeBuilder({ page: itemPage }).include('[data-testid="radio-noise-summary"]').analyze();
   expect(sectionAxe.violations.map((v) => `${v.id}: ${v.help}`)).toEqual([]);
