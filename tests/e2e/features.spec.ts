@@ -119,6 +119,8 @@ test('a reviewer records a lantern that also serves as a power bank: the form as
   await page.locator('#feature-hanging-hook-detail').fill('steel wire');
   await page.locator('#feature-output-12v').selectOption('no');
   await page.screenshot({ path: 'test-results/features-form.png', fullPage: true });
+  const axe = await new AxeBuilder({ page }).include('[data-testid="also-serves-fieldset"]').include('[data-testid="features-fieldset"]').analyze();
+  expect(axe.violations.map((v) => v.id)).toEqual([]);
 
   // Without the rated energy a bank role is refused, the field named; nothing is saved.
   await page.getByRole('button', { name: 'Save draft' }).click();
