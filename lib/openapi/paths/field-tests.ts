@@ -50,6 +50,9 @@ export const fieldTestViewSchema = z.object({
     ),
     results: z.array(z.record(z.string(), z.unknown())).meta({ description: 'Per item: mean, sd and n of each figure over the trials.' }),
     methods: z.array(z.unknown()).meta({ description: 'The methods the results were computed by, with their source.' }),
+    radioNoise: radioNoiseViewSchema.shape.radioNoise
+      .optional()
+      .meta({ description: 'Radio-noise checks only: the band readings and radio-quiet summaries, as `GET /api/v1/field-tests/{id}/radio-noise` sends them.' }),
   }),
 });
 
@@ -125,7 +128,7 @@ export function registerFieldTests(registry: OpenAPIRegistry): void {
     path: '/api/v1/field-tests/{id}',
     tags: [TAG],
     summary: 'Read a field test',
-    description: 'The record, its trials and their results (never the raw series). Unapproved tests only for the author and editors.',
+    description: 'The record, its trials and their results (never the raw series); for a radio-noise check also its band readings (`radioNoise`). Unapproved tests only for the author and editors.',
     security: OPTIONALLY_SIGNED_IN,
     request: { params: testParams },
     responses: {

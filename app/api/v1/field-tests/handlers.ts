@@ -5,6 +5,8 @@ import type { Db } from '@/db/connection';
 import type { Actor } from '@/db/gear';
 import { addTypedTrial, createFieldTest, deleteTrial, findEditableFieldTest, saveTrialSeries, transitionFieldTest, updateFieldTest } from '@/db/field-tests';
 import { getFieldTestView } from '@/db/field-tests-view';
+import { getTestRadioNoise, RADIO_NOISE_KIND } from '@/db/radio-noise';
+import { radioNoiseBody } from './radio-noise-handlers';
 import { apiHandler, assertSameOrigin, hasMediaType, parseWith, readJson } from '@/lib/http/api';
 import { AppError } from '@/lib/http/errors';
 import { csvUploadRequestSchema, fieldTestTransitionSchema, typedReadingsUploadSchema } from '@/lib/field-tests/schemas';
@@ -104,7 +106,7 @@ export const handleUpdateFieldTest = apiHandler(async (db: Db, user: Actor | nul
   return NextResponse.json({ fieldTest: { id } }, { headers: NO_STORE });
 });
 
-/** GET /api/v1/field-tests/{id} — the record, its trials and their results (no raw series). */
+/** GET /api/v1/field-tests/{id} — the record, its trials and their results (no raw series); a radio-noise check's band readings too. */
 export const handleGetFieldTest = apiHandler(async (db: Db, user: Actor | null, id: string) => {
   const view = getFieldTestView(db, id, user);
   const { test } = view;
@@ -126,6 +128,8 @@ export const handleGetFieldTest = apiHandler(async (db: Db, user: Actor | null, 
         trials: view.trials.map((t) => ({ id: t.id, item: view.items.find((i) => i.id === t.itemId)?.slug, label: t.label, rows: t.rows, notes: t.notes, analysis: t.analysis })),
         results: view.analysis.items,
         methods: view.analysis.methods,
+        // Read under the same visibility rule as the test itself (db/radio-noise.ts getTestRadioNoise).
+        ...(test.kind === RADIO_NOISE_KIND ? { radioNoise: radioNoiseBody(getTestRadioNoise(db, test.id, user)) } : {}),
       },
     },
     { headers: view.public ? { 'Cache-Control': 'no-cache' } : { 'Cache-Control': 'private, no-store' } },
