@@ -425,6 +425,10 @@ export const kitEntries = sqliteTable(
     freePorts: text('free_ports', { mode: 'json' }).$type<unknown>(),
     /** Free-form cable or adapter: conversion efficiency, (0, 1]. */
     freeEfficiency: real('free_efficiency'),
+    /** Free-form storage: rated (stored) energy of one unit, Wh; counted in the budget like a catalog item's ratedEnergy. */
+    freeEnergyWh: real('free_energy_wh'),
+    /** Free-form source (solar panel): rated power of one unit, W; counted in the budget like a catalog item's ratedPower. */
+    freeRatedW: real('free_rated_w'),
     position: integer('position').notNull().default(0),
   },
   (t) => [index('kit_entries_kit').on(t.kitId)],
