@@ -5,6 +5,7 @@
  * the public API and browse show approved answers and roles only.
  */
 import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
 import { getTableName } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
@@ -12,30 +13,10 @@ import { gearFeatures, gearItems, gearPendingChanges, specChanges, specs, type R
 import { createUser } from '@/db/users';
 import { AppError } from '@/lib/http/errors';
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('next/navigation', () => ({
-  redirect: (to: string) => {
-    throw Object.assign(new Error('redirect'), { redirectTo: to });
-  },
-}));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  const { hasRole } = await import('@/lib/auth/roles');
-  const requireUser = async () => {
-    if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
-    return state.user;
-  };
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser,
-    requireRole: async (role: Role) => {
-      const user = await requireUser();
-      if (!hasRole(user, role)) throw new E('forbidden', `This needs the ${role} role.`);
-      return user;
-    },
-  };
-});
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('next/navigation', () => navigationMock());
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { approveGear, createGear, getGearView, specHistory, submitGear, updateGear } = await import('@/db/gear');
 const { featuresOfGear, rolesOfItem, alsoServesAsOf, itemServesAs } = await import('@/db/gear-roles');

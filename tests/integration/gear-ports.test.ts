@@ -8,6 +8,7 @@
  * the Extended Power Range of USB PD Rev 3.1 (same section).
  */
 import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
 import { getTableName } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
@@ -15,30 +16,10 @@ import { gearItems, gearPendingChanges, gearPorts, specChanges, specs, type Role
 import { createUser } from '@/db/users';
 import { AppError } from '@/lib/http/errors';
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('next/navigation', () => ({
-  redirect: (to: string) => {
-    throw Object.assign(new Error('redirect'), { redirectTo: to });
-  },
-}));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  const { hasRole } = await import('@/lib/auth/roles');
-  const requireUser = async () => {
-    if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
-    return state.user;
-  };
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser,
-    requireRole: async (role: Role) => {
-      const user = await requireUser();
-      if (!hasRole(user, role)) throw new E('forbidden', `This needs the ${role} role.`);
-      return user;
-    },
-  };
-});
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('next/navigation', () => navigationMock());
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { approveGear, createGear, getGearView, specHistory, submitGear, updateGear, workingCopy } = await import('@/db/gear');
 const { portsOfGear } = await import('@/db/gear-ports');
