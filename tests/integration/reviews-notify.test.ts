@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
 import { randomUUID } from 'node:crypto';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
@@ -9,31 +10,11 @@ import { startCaptureServer } from '@/lib/mail/capture-server';
 import { useCaptureServer } from '@/lib/mail';
 
 // The actions read the shared connection and the session: point both at this test.
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
 vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
-vi.mock('next/navigation', () => ({
-  redirect: (to: string) => {
-    throw Object.assign(new Error('redirect'), { redirectTo: to });
-  },
-}));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  const { hasRole } = await import('@/lib/auth/roles');
-  const requireUser = async () => {
-    if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
-    return state.user;
-  };
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser,
-    requireRole: async (role: Role) => {
-      const user = await requireUser();
-      if (!hasRole(user, role)) throw new E('forbidden', `This needs the ${role} role.`);
-      return user;
-    },
-  };
-});
+vi.mock('next/navigation', () => navigationMock());
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const actions = await import('@/lib/reviews/actions');
 const { buildNotifications } = await import('@/lib/reviews/notify');
