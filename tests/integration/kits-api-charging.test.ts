@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
 import type { Role } from '@/db/schema';
@@ -8,18 +9,9 @@ import type { Role } from '@/db/schema';
  * `budget.charging` — every path per device with its steps and efficiency, or each reason none exists.
  * The arithmetic is worked in tests/unit/measure-paths*.test.ts; here the wiring and the response shape.
  */
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser: async () => {
-      if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
-      return state.user;
-    },
-  };
-});
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { seedDemo } = await import('@/db/seed');
 const { kitChargingSchema } = await import('@/lib/openapi/paths/kits');

@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import { eq } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
@@ -9,18 +10,9 @@ import { kitEntries, kits, type Role } from '@/db/schema';
  * round trip, bad ports → 422 with nothing stored, stored ports checked again on the way out.
  * The path and budget arithmetic is worked in tests/unit/kits-paths.test.ts; here the wiring is checked.
  */
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser: async () => {
-      if (!state.user) throw new E('unauthenticated', 'Sign in to do this.');
-      return state.user;
-    },
-  };
-});
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { seedDemo } = await import('@/db/seed');
 const { getOwnKit } = await import('@/db/kits');

@@ -3,7 +3,7 @@ import { dbMock, guardMock, type SessionUser } from '../support/integration-mock
 import { and, eq, isNull } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
-import { gearItems, kits, type Role } from '@/db/schema';
+import { gearItems, kits } from '@/db/schema';
 
 /*
  * Kits API over a fresh database with the demo seed: round trip, ownership (404 to anyone else),
