@@ -3,16 +3,16 @@
  * (tests/integration/api-seed.ts; figures in its comment, expected rows worked out by hand).
  */
 import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import type { Db } from '@/db/connection';
-import type { Role } from '@/db/schema';
 import { createTestDb } from '@/db/test-db';
 import { createReviewDraft, transitionReview, updateReviewDraft } from '@/db/reviews';
 import type { CompareResponse, CompareRow, ReviewDetail, ReviewListResponse } from '@/lib/browse/contract';
 import { seedCatalog, type Seeded, type SeedUser } from './api-seed';
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', () => ({ getCurrentUser: async () => state.user }));
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { GET: COMPARE } = await import('@/app/api/v1/compare/route');
 const { GET: REVIEWS } = await import('@/app/api/v1/reviews/route');

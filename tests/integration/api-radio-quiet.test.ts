@@ -8,15 +8,16 @@
 import { randomUUID } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import type { Db } from '@/db/connection';
-import { fieldTestItems, fieldTests, specs, type Role } from '@/db/schema';
+import { fieldTestItems, fieldTests, specs } from '@/db/schema';
 import { createTestDb } from '@/db/test-db';
 import type { CompareResponse, GearListResponse } from '@/lib/browse/contract';
 import { seedCatalog, type Seeded } from './api-seed';
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', () => ({ getCurrentUser: async () => state.user }));
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { GET } = await import('@/app/api/v1/gear/route');
 const { GET: COMPARE } = await import('@/app/api/v1/compare/route');
