@@ -5,29 +5,16 @@
  * Expected orders and counts are worked out by hand from the seed (values in its comment).
  */
 import { beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import type { Db } from '@/db/connection';
-import type { Role } from '@/db/schema';
 import { createTestDb } from '@/db/test-db';
 import type { GearListResponse, GearSummary } from '@/lib/browse/contract';
 import { encodeCursor } from '@/lib/browse/cursor';
 import { seedCatalog, type Seeded, type SeedUser } from './api-seed';
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError } = await import('@/lib/http/errors');
-  return {
-    getCurrentUser: async () => state.user,
-    requireUser: async () => {
-      if (!state.user) throw new AppError('unauthenticated', 'Sign in to do this.');
-      return state.user;
-    },
-    requireRole: async () => {
-      if (!state.user) throw new AppError('unauthenticated', 'Sign in to do this.');
-      return state.user;
-    },
-  };
-});
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { GET } = await import('@/app/api/v1/gear/route');
 const { GET: GET_ONE } = await import('@/app/api/v1/gear/[slug]/route');

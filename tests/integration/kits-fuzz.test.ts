@@ -1,8 +1,8 @@
 import { beforeAll, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import fc from 'fast-check';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
-import type { Role } from '@/db/schema';
 import { kitInputSchema } from '@/lib/kits';
 
 /*
@@ -10,9 +10,9 @@ import { kitInputSchema } from '@/lib/kits';
  * schema refuses gets 422 naming the field and stores nothing; a body it accepts gets 201.
  * Replay a failure with FC_SEED.
  */
-const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
-vi.mock('@/lib/auth/guard', () => ({ getCurrentUser: async () => state.user, requireUser: async () => state.user }));
+const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
 
 const { createUser } = await import('@/db/users');
 const { POST } = await import('@/app/api/v1/kits/route');
