@@ -212,6 +212,8 @@ function entryFromRow(row: EntryRow): KitEntryInput {
     entry.freeRole = (FREE_ROLES as readonly string[]).includes(row.freeRole ?? '') ? (row.freeRole as FreeRole) : null;
     entry.freePorts = storedPorts(row.freePorts);
     entry.freeEfficiency = row.freeEfficiency;
+    entry.freeEnergyWh = row.freeEnergyWh;
+    entry.freeRatedW = row.freeRatedW;
   }
   entry.loadMode = row.loadMode;
   entry.hoursPerDay = row.hoursPerDay;
@@ -346,6 +348,8 @@ function entryValues(kitId: string, entries: readonly KitEntryInput[]) {
     freeRole: e.gearItemId ? null : (e.freeRole ?? null),
     freePorts: e.gearItemId ? null : (e.freePorts ?? null),
     freeEfficiency: e.gearItemId ? null : (e.freeEfficiency ?? null),
+    freeEnergyWh: e.gearItemId ? null : (e.freeEnergyWh ?? null),
+    freeRatedW: e.gearItemId ? null : (e.freeRatedW ?? null),
     loadMode: e.loadMode ?? null,
     hoursPerDay: e.hoursPerDay ?? null,
     dutyCycle: e.dutyCycle ?? null,

@@ -119,6 +119,28 @@ export function EntryRow({ index, item, hidden, form, value, onRemove }: { index
             </Field>
           </>
         ) : null}
+        {!item && !hidden && value?.freeRole === 'storage' ? (
+          <>
+            <Field id={id('chemistry')} label="Chemistry" hint="From its label; until you choose one the budget uses only half of its stored energy.">
+              <select id={id('chemistry')} className="block w-full rounded-md border border-rule bg-paper px-3 py-2" {...register(`entries.${index}.chemistry`, { setValueAs: (v: unknown) => (v === '' ? null : v) })}>
+                <option value="">Not stated</option>
+                {CHEMISTRIES.map((c) => (
+                  <option key={c} value={c}>
+                    {CHEMISTRY_LABELS[c]}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Field
+              id={id('depthOfDischarge')}
+              label="Depth of discharge (0–1)"
+              hint={value?.chemistry ? `Empty = the default, ${depthSource(value.chemistry)}.` : 'How much of the capacity you allow yourself to use. Empty = the default for the chemistry.'}
+              errors={msgs(errors, index, 'depthOfDischarge')}
+            >
+              <TextInput id={id('depthOfDischarge')} type="number" step="any" min="0" max="1" inputMode="decimal" {...register(`entries.${index}.depthOfDischarge`, optionalNumber)} invalid={!!msgs(errors, index, 'depthOfDischarge')} />
+            </Field>
+          </>
+        ) : null}
         {item && role === 'panel' ? <p className="text-sm sm:col-span-3">Rated {fmt(pickSpec(item, 'ratedPower')?.value ?? 0)} W in full sun ({pickSpec(item, 'ratedPower')?.basis}).</p> : null}
         {item && role === 'none' && !stores ? <p className="text-sm text-slate sm:col-span-3">Counted in the totals; it neither uses nor stores energy in the budget.</p> : null}
       </div>

@@ -148,6 +148,13 @@ export function FreePowerFields({ index, form }: { index: number; form: Form }) 
   const role = useController({ control: form.control, name: `entries.${index}.freeRole` });
   const ports = useController({ control: form.control, name: `entries.${index}.freePorts` });
   const efficiency = useController({ control: form.control, name: `entries.${index}.freeEfficiency` });
+  const energy = useController({ control: form.control, name: `entries.${index}.freeEnergyWh` });
+  const ratedW = useController({ control: form.control, name: `entries.${index}.freeRatedW` });
+  const [energyText, setEnergyText] = useState(energy.field.value != null ? String(energy.field.value) : '');
+  const [ratedText, setRatedText] = useState(ratedW.field.value != null ? String(ratedW.field.value) : '');
+  const entryErrors = form.errors.entries?.[index] as Record<string, unknown> | undefined;
+  const energyErrors = messages(entryErrors?.freeEnergyWh);
+  const ratedErrors = messages(entryErrors?.freeRatedW);
   const current = (role.field.value ?? null) as FreeRole | null;
   const [rows, setRows] = useState<PortText[]>(() => ((ports.field.value ?? []) as KitPort[]).map(toText));
   const [effText, setEffText] = useState(efficiency.field.value != null ? String(efficiency.field.value) : '');
@@ -164,6 +171,15 @@ export function FreePowerFields({ index, form }: { index: number; form: Form }) 
   const changeRole = (value: string) => {
     const next = value === '' ? null : (value as FreeRole);
     role.field.onChange(next);
+    // Stored energy belongs to a battery or bank, rated power to a panel: drop the one the new role does not have.
+    if (next !== 'storage') {
+      setEnergyText('');
+      energy.field.onChange(null);
+    }
+    if (next !== 'source') {
+      setRatedText('');
+      ratedW.field.onChange(null);
+    }
     if (isLink(next)) {
       const ends = rows.length === 2 && isLink(current) ? rows : [toText({ kind: 'socket-12v', direction: 'input' }), toText({ kind: 'usb-c', direction: 'output' })];
       push(ends.map((t, i) => ({ ...t, direction: i === 0 ? 'input' : 'output' })), true, next === 'cable');
@@ -213,6 +229,50 @@ export function FreePowerFields({ index, form }: { index: number; form: Form }) 
         </>
       ) : current ? (
         <>
+          {current === 'storage' ? (
+            <Field
+              id={`${id}.freeEnergyWh`}
+              label="Stored energy each (Wh)"
+              hint="As on its label (Wh, or mAh × V ÷ 1000). Counts in the power budget; empty = left out of it."
+              errors={energyErrors.length ? energyErrors : undefined}
+            >
+              <TextInput
+                id={`${id}.freeEnergyWh`}
+                type="number"
+                step="any"
+                min="0"
+                inputMode="decimal"
+                value={energyText}
+                invalid={energyErrors.length > 0}
+                onChange={(e) => {
+                  setEnergyText(e.target.value);
+                  energy.field.onChange(num(e.target.value));
+                }}
+              />
+            </Field>
+          ) : null}
+          {current === 'source' ? (
+            <Field
+              id={`${id}.freeRatedW`}
+              label="Rated power each (W)"
+              hint="In full sun, as on its label. Counts in the power budget with the kit’s peak sun hours; empty = left out of it."
+              errors={ratedErrors.length ? ratedErrors : undefined}
+            >
+              <TextInput
+                id={`${id}.freeRatedW`}
+                type="number"
+                step="any"
+                min="0"
+                inputMode="decimal"
+                value={ratedText}
+                invalid={ratedErrors.length > 0}
+                onChange={(e) => {
+                  setRatedText(e.target.value);
+                  ratedW.field.onChange(num(e.target.value));
+                }}
+              />
+            </Field>
+          ) : null}
           {rows.map((r, j) => (
             <PortRow
               key={j}

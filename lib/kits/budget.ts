@@ -99,7 +99,8 @@ export interface StorageLine {
   chemistry: Chemistry | null;
   /** Rated energy of one unit, Wh. */
   capacityWh: number;
-  capacityBasis: SpecBasis;
+  /** 'typed' for a free-form entry's stored energy. */
+  capacityBasis: SpecBasis | 'typed';
   depthOfDischarge: number;
   /** 'yours' when typed for this kit, 'default' from the chemistry, 'cautious' when the chemistry is unknown. */
   depthFrom: 'yours' | 'default' | 'cautious';
@@ -114,7 +115,8 @@ export interface PanelLine {
   index: number;
   name: string;
   ratedW: number;
-  basis: SpecBasis;
+  /** 'typed' for a free-form panel's rated power. */
+  basis: SpecBasis | 'typed';
   quantity: number;
 }
 
@@ -190,14 +192,36 @@ function loadLines(e: ResolvedEntry, warnings: KitWarning[]): LoadLine[] {
   return lines;
 }
 
-function storageLine(e: ResolvedEntry & { kind: 'catalog' }, warnings: KitWarning[]): StorageLine | null {
+/** What a storage line needs of its entry: from the catalog item's specs, or typed on a free-form entry. */
+interface StorageFigures {
+  rated: { value: number; basis: SpecBasis | 'typed' } | null;
+  itemChemistry: Chemistry | null;
+  maxContinuousW: number | null;
+  /** Why `rated` is missing, in words. */
+  missing: string;
+}
+
+function storageFigures(e: ResolvedEntry & { kind: 'catalog' | 'free' }): StorageFigures {
+  if (e.kind === 'free') {
+    const wh = e.entry.freeEnergyWh;
+    return { rated: wh != null ? { value: wh, basis: 'typed' } : null, itemChemistry: null, maxContinuousW: null, missing: 'type its stored energy (Wh) to count it in the budget' };
+  }
+  return {
+    rated: pickSpec(e.item, 'ratedEnergy'),
+    itemChemistry: e.item.chemistry,
+    maxContinuousW: pickSpec(e.item, 'continuousPower')?.value ?? null,
+    missing: 'the catalog gives no rated energy, so it is left out of the budget',
+  };
+}
+
+function storageLine(e: ResolvedEntry & { kind: 'catalog' | 'free' }, warnings: KitWarning[]): StorageLine | null {
   const name = entryName(e);
-  const rated = pickSpec(e.item, 'ratedEnergy');
+  const { rated, itemChemistry, maxContinuousW, missing } = storageFigures(e);
   if (!rated || rated.value <= 0) {
-    warnings.push({ code: 'no-capacity', message: `${name}: the catalog gives no rated energy, so it is left out of the budget.` });
+    warnings.push({ code: 'no-capacity', message: `${name}: ${missing}.` });
     return null;
   }
-  const chemistry = e.entry.chemistry ?? e.item.chemistry;
+  const chemistry = e.entry.chemistry ?? itemChemistry;
   let depthOfDischarge: number;
   let depthFrom: StorageLine['depthFrom'];
   let depthNote: string;
@@ -217,7 +241,6 @@ function storageLine(e: ResolvedEntry & { kind: 'catalog' }, warnings: KitWarnin
   if (!chemistry) {
     warnings.push({ code: 'chemistry-unknown', message: `${name}: choose its chemistry; until then the budget uses only half of its capacity.` });
   }
-  const maxW = pickSpec(e.item, 'continuousPower');
   const airline = chemistry && LITHIUM.includes(chemistry) ? airlineBand(rated.value) : null;
   if (airline === 'approval') {
     warnings.push({
@@ -241,13 +264,13 @@ function storageLine(e: ResolvedEntry & { kind: 'catalog' }, warnings: KitWarnin
     depthNote,
     quantity: e.quantity,
     usableWh: rated.value * depthOfDischarge * e.quantity,
-    maxContinuousW: maxW ? maxW.value : null,
+    maxContinuousW,
     airline,
   };
 }
 
-function panelLine(e: ResolvedEntry & { kind: 'catalog' }): PanelLine | null {
-  const rated = pickSpec(e.item, 'ratedPower');
+function panelLine(e: ResolvedEntry & { kind: 'catalog' | 'free' }): PanelLine | null {
+  const rated = e.kind === 'catalog' ? pickSpec(e.item, 'ratedPower') : e.entry.freeRatedW != null ? { value: e.entry.freeRatedW, basis: 'typed' as const } : null;
   if (!rated || rated.value <= 0) return null;
   return { index: e.index, name: entryName(e), ratedW: rated.value, basis: rated.basis, quantity: e.quantity };
 }
@@ -261,7 +284,18 @@ export function kitBudget(kit: BudgetSettings & { entries: readonly KitEntryInpu
   for (const e of resolveEntries(kit.entries, catalog)) {
     if (e.kind === 'hidden') continue;
     loads.push(...loadLines(e, warnings));
-    if (e.kind !== 'catalog') continue;
+    if (e.kind === 'free') {
+      // A free-form battery or panel counts through the energy or rated power typed for it.
+      if (e.entry.freeRole === 'storage') {
+        const s = storageLine(e, warnings);
+        if (s) storage.push(s);
+      }
+      if (e.entry.freeRole === 'source') {
+        const p = panelLine(e);
+        if (p) panels.push(p);
+      }
+      continue;
+    }
     // An item counts in every role it has: a lantern that also serves as a power bank is a load and storage.
     if (storesEnergy(e.item)) {
       const s = storageLine(e, warnings);

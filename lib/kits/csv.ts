@@ -49,6 +49,8 @@ export function kitCsv(entries: readonly KitEntryInput[], catalog: KitCatalog): 
         currency: p?.currency ?? '',
         draw_w: num(e.entry.freeDrawW),
         draw_basis: e.entry.freeDrawW == null ? '' : 'typed',
+        rated_energy_wh: num(e.entry.freeEnergyWh),
+        rated_power_w: num(e.entry.freeRatedW),
       };
     }
     const { item } = e;

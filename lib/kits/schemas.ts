@@ -42,6 +42,9 @@ export const priceSchema = z.strictObject({
 
 const MAX_PORT_FIGURE = 1e6;
 export const MAX_FREE_PORTS = 16;
+/** Largest free-form figures accepted: far above any camp kit, low enough to catch a slipped decimal point. */
+export const MAX_FREE_ENERGY_WH = 100_000;
+export const MAX_FREE_RATED_W = 100_000;
 const portFigure = (what: string) => finite(what).gt(0, `${what} must be more than 0 (leave it empty when not stated).`).max(MAX_PORT_FIGURE, `${what} is too large.`);
 
 /**
@@ -148,6 +151,18 @@ export const kitEntrySchema = z
       }),
     /** Free-form adapter (or lossy cable): conversion efficiency, (0, 1]. */
     freeEfficiency: optionalNumber(finite('Efficiency').gt(0, 'Efficiency must be more than 0.').max(1, 'Efficiency is at most 1 (100 %).')),
+    /** Free-form battery or power bank (role storage): rated energy of one unit, Wh, as on its label. */
+    freeEnergyWh: optionalNumber(
+      finite('Stored energy')
+        .gt(0, 'Stored energy must be more than 0 Wh (leave it empty when not known).')
+        .max(MAX_FREE_ENERGY_WH, `Stored energy is too large for a camp kit (over ${MAX_FREE_ENERGY_WH / 1000} kWh).`),
+    ).meta({ description: 'Free-form battery or power bank (freeRole "storage"): rated energy of one unit, Wh. Counted in the budget as a catalog item’s rated energy is.' }),
+    /** Free-form solar panel (role source): rated power of one unit in full sun, W. */
+    freeRatedW: optionalNumber(
+      finite('Rated power')
+        .gt(0, 'Rated power must be more than 0 W (leave it empty when not known).')
+        .max(MAX_FREE_RATED_W, `Rated power is too large for a camp kit (over ${MAX_FREE_RATED_W / 1000} kW).`),
+    ).meta({ description: 'Free-form solar panel (freeRole "source"): rated power of one unit in full sun, W. Counted in the budget as a catalog panel’s rated power is.' }),
   })
   .superRefine((entry, ctx) => {
     const hasItem = typeof entry.gearItemId === 'string';
@@ -156,9 +171,18 @@ export const kitEntrySchema = z
     if (hasItem && (hasName || entry.freeMassG != null || entry.freePrice != null || entry.freeDrawW != null)) {
       ctx.addIssue({ code: 'custom', path: ['gearItemId'], message: 'A catalog entry takes its name, mass, price and draw from the catalog.' });
     }
+    if (hasItem && (entry.freeEnergyWh != null || entry.freeRatedW != null)) {
+      ctx.addIssue({ code: 'custom', path: ['gearItemId'], message: 'A catalog entry takes its rated energy and rated power from the catalog.' });
+    }
     if (hasItem && (entry.freeRole != null || entry.freePorts != null || entry.freeEfficiency != null)) {
       ctx.addIssue({ code: 'custom', path: ['gearItemId'], message: 'A catalog entry takes its ports from the catalog.' });
       return;
+    }
+    if (!hasItem && entry.freeEnergyWh != null && entry.freeRole !== 'storage') {
+      ctx.addIssue({ code: 'custom', path: ['freeEnergyWh'], message: 'Only a battery or power bank stores energy: choose that role, or leave the stored energy empty.' });
+    }
+    if (!hasItem && entry.freeRatedW != null && entry.freeRole !== 'source') {
+      ctx.addIssue({ code: 'custom', path: ['freeRatedW'], message: 'Only a solar panel has a rated power here: choose that role, or leave the rated power empty.' });
     }
     const link = entry.freeRole === 'cable' || entry.freeRole === 'adapter';
     const ports = entry.freePorts ?? [];

@@ -29,7 +29,7 @@ export interface KitTotals {
   priceMissing: string[];
   /** Σ highest-mode light output × quantity, lm. */
   lightLm: number;
-  /** Σ rated energy × quantity of the batteries and power banks (and items that also serve as one), Wh. */
+  /** Σ rated energy × quantity of the batteries and power banks (and items that also serve as one, and free-form ones with a typed energy), Wh. */
   storedWh: number;
   /** Σ rated energy × quantity of the cells inside other devices (lanterns, radios), Wh. */
   deviceCellsWh: number;
@@ -60,6 +60,7 @@ export function kitTotals(entries: readonly KitEntryInput[], catalog: KitCatalog
       else totals.massMissing.push(name);
       if (e.entry.freePrice) addPrice(e.entry.freePrice.currency, e.entry.freePrice.amountMinor * e.quantity);
       else totals.priceMissing.push(name);
+      if (e.entry.freeRole === 'storage' && e.entry.freeEnergyWh != null) totals.storedWh += e.entry.freeEnergyWh * e.quantity;
       continue;
     }
     const { item } = e;

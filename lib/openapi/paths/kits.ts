@@ -20,7 +20,13 @@ const kitRecordSchema = z
     lossFraction: z.number().nullable().optional(),
     conversionEfficiency: z.number().nullable().optional(),
     entries: z.array(
-      z.looseObject({ quantity: z.number().int() }).meta({ description: 'An entry as sent (`kitEntrySchema`); `hidden: true` marks a catalog item the viewer may not read, shown as “unpublished item”.' }),
+      z
+        .looseObject({
+          quantity: z.number().int(),
+          freeEnergyWh: z.number().nullable().optional().meta({ description: 'Free-form battery or power bank: stored energy of one unit, Wh (counted in `totals.storedWh` and the budget’s storage).' }),
+          freeRatedW: z.number().nullable().optional().meta({ description: 'Free-form solar panel: rated power of one unit, W (counted in the budget’s panels).' }),
+        })
+        .meta({ description: 'An entry as sent (`kitEntrySchema`); `hidden: true` marks a catalog item the viewer may not read, shown as “unpublished item”.' }),
     ),
     createdAt: z.string(),
     updatedAt: z.string(),
@@ -78,7 +84,7 @@ export const kitResponseSchema = z
         massG: z.number(),
         prices: z.array(z.object({ currency: z.string(), amountMinor: z.number().int() })).meta({ description: 'One total per currency (never added together), in minor units.' }),
         lightLm: z.number(),
-        storedWh: z.number(),
+        storedWh: z.number().meta({ description: 'Σ rated energy × quantity of the batteries and power banks, catalog and free-form (`freeEnergyWh`), Wh.' }),
         hiddenCount: z.number().int(),
       })
       .meta({ description: 'lib/kits/totals.ts KitTotals: mass (with a breakdown by group), prices, light output, stored energy.' }),
@@ -129,7 +135,7 @@ export function registerKits(registry: OpenAPIRegistry): void {
     path: '/api/v1/kits',
     tags: [TAG],
     summary: 'Save a kit',
-    description: `Private until shared. Up to ${MAX_ENTRIES} entries: catalog items by id (only items you may read) or free-form entries with a name and, for powered things, their draw.`,
+    description: `Private until shared. Up to ${MAX_ENTRIES} entries: catalog items by id (only items you may read) or free-form entries with a name and, for powered things, their draw (a free-form battery its stored energy, freeEnergyWh; a free-form panel its rated power, freeRatedW).`,
     security: SIGNED_IN,
     request: { body: { required: true, content: { 'application/json': { schema: kitInputSchema } } } },
     responses: {

@@ -67,6 +67,8 @@ export default async function SharedKitPage({ params }: { params: Promise<{ toke
                       e.kind === 'free' && e.entry.freeRole ? e.entry.freeRole : null,
                       ...(e.kind === 'free' ? (e.entry.freePorts ?? []).map((p) => `${p.direction === 'both' ? 'in and out' : p.direction}: ${portSummary(cleanPort(p))}`) : []),
                       e.kind === 'free' && e.entry.freeEfficiency != null ? `efficiency ${fmtPercent(e.entry.freeEfficiency)}` : null,
+                      e.kind === 'free' && e.entry.freeEnergyWh != null ? `${fmt(e.entry.freeEnergyWh)} Wh stored` : null,
+                      e.kind === 'free' && e.entry.freeRatedW != null ? `${fmt(e.entry.freeRatedW)} W rated` : null,
                     ]
                       .filter(Boolean)
                       .join(' · ')}
