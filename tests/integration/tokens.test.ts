@@ -1,4 +1,5 @@
 import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import Database from 'better-sqlite3';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -15,19 +16,10 @@ import { gearItems, type Role } from '@/db/schema';
  * with Retry-After), and the "denied: 401 / 404 / 403, nothing written" rule of the plan's preamble.
  */
 
-const state = vi.hoisted(() => ({ db: null as unknown as Db, session: null as null | { id: string; email: string; name: string; role: Role } }));
-vi.mock('@/db', () => ({ getDb: () => state.db }));
+const state = vi.hoisted(() => ({ db: null as unknown as Db, session: null as SessionUser | null }));
+vi.mock('@/db', () => dbMock(() => state.db));
 // The session cookie path: the signed-in user of this test (null = no cookie). Tokens go through the real code.
-vi.mock('@/lib/auth/guard', async () => {
-  const { AppError: E } = await import('@/lib/http/errors');
-  return {
-    getCurrentUser: async () => state.session,
-    requireUser: async () => {
-      if (!state.session) throw new E('unauthenticated', 'Sign in to do this.');
-      return state.session;
-    },
-  };
-});
+vi.mock('@/lib/auth/guard', () => guardMock(() => state.session));
 
 const { createUser, changeUserRole, setUserDisabled } = await import('@/db/users');
 const { authenticateApiToken, createApiToken, listApiTokens, revokeApiToken, LAST_USED_RESOLUTION_MS } = await import('@/db/api-tokens');
