@@ -5,12 +5,11 @@
  * the public API and browse show approved answers and roles only.
  */
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
+import { createSessionUser, dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
 import { getTableName } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
 import { gearFeatures, gearItems, gearPendingChanges, specChanges, specs, type Role } from '@/db/schema';
-import { createUser } from '@/db/users';
 import { AppError } from '@/lib/http/errors';
 
 const state = vi.hoisted(() => ({ db: null as unknown as Db, user: null as SessionUser | null }));
@@ -57,10 +56,7 @@ function approve(slug: string) {
 
 beforeEach(() => {
   state.db = createTestDb().db;
-  const make = (key: string, role: Role) => {
-    const u = createUser(state.db, { email: `${key}@example.org`, name: key, passwordHash: null, role });
-    return { id: u.id, email: u.email, name: u.name, role: u.role };
-  };
+  const make = (key: string, role: Role) => createSessionUser(state.db, key, role);
   author = make('author', 'reviewer');
   editor = make('editor', 'editor');
   state.user = null;

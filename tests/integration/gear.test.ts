@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
+import { createSessionUser, dbMock, guardMock, navigationMock, type SessionUser } from '../support/integration-mocks';
 import { getTableName } from 'drizzle-orm';
 import { createTestDb } from '@/db/test-db';
 import type { Db } from '@/db/connection';
@@ -50,10 +50,7 @@ const params = (slug: string) => ({ params: Promise.resolve({ slug }) });
 
 beforeEach(() => {
   state.db = createTestDb().db;
-  const make = (key: string, role: Role) => {
-    const u = createUser(state.db, { email: `${key}@example.org`, name: key, passwordHash: null, role });
-    return { id: u.id, email: u.email, name: u.name, role: u.role };
-  };
+  const make = (key: string, role: Role) => createSessionUser(state.db, key, role);
   users = { author: make('author', 'reviewer'), other: make('other', 'reviewer'), editor: make('editor', 'editor'), reader: make('reader', 'reader') };
   state.user = null;
 });

@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it, vi } from 'vitest';
-import { dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
+import { createSessionUser, dbMock, guardMock, type SessionUser } from '../support/integration-mocks';
 import Database from 'better-sqlite3';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -21,7 +21,7 @@ vi.mock('@/db', () => dbMock(() => state.db));
 // The session cookie path: the signed-in user of this test (null = no cookie). Tokens go through the real code.
 vi.mock('@/lib/auth/guard', () => guardMock(() => state.session));
 
-const { createUser, changeUserRole, setUserDisabled } = await import('@/db/users');
+const { changeUserRole, setUserDisabled } = await import('@/db/users');
 const { authenticateApiToken, createApiToken, listApiTokens, revokeApiToken, LAST_USED_RESOLUTION_MS } = await import('@/db/api-tokens');
 const { errorResponse, isSqliteBusy } = await import('@/lib/http/api');
 const gearList = await import('@/app/api/v1/gear/route');
@@ -82,10 +82,7 @@ beforeEach(() => {
   const created = createTestDb();
   state.db = created.db;
   file = created.file;
-  const make = (key: string, role: Role) => {
-    const user = createUser(state.db, { email: `${key}@cedar-hollow.example`, name: key, passwordHash: null, role });
-    return { id: user.id, email: user.email, name: user.name, role: user.role };
-  };
+  const make = (key: string, role: Role) => createSessionUser(state.db, key, role, 'cedar-hollow.example');
   u = { author: make('author', 'reviewer'), other: make('other', 'reviewer'), editor: make('editor', 'editor'), reader: make('reader', 'reader'), admin: make('admin', 'admin') };
   state.session = null;
   addItem('lantern', u.author.id, true);

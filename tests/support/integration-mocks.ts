@@ -11,13 +11,21 @@
  *   vi.mock('@/lib/auth/guard', () => guardMock(() => state.user));
  *
  * A factory runs when its module is first imported (the test's `await import(...)` of a route), by which
- * time this module is loaded; it must therefore import nothing that reads '@/db' or the guard itself.
+ * time this module is loaded; it must therefore import nothing that reads '@/db' or the guard itself
+ * (db/users takes the database as an argument).
  */
 import type { Db } from '@/db/connection';
 import type { Role } from '@/db/schema';
+import { createUser } from '@/db/users';
 
 /** The signed-in user as lib/auth/guard hands it out (its CurrentUser). */
 export type SessionUser = { id: string; email: string; name: string; role: Role };
+
+/** A new account named `key` (email key@domain) with `role`, shaped as the guard hands out the signed-in user. */
+export function createSessionUser(db: Db, key: string, role: Role, domain = 'example.org'): SessionUser {
+  const created = createUser(db, { email: `${key}@${domain}`, name: key, passwordHash: null, role });
+  return { id: created.id, email: created.email, name: created.name, role: created.role };
+}
 
 /** Stands in for '@/db': every caller of getDb() gets the test's database. */
 export function dbMock(db: () => Db) {
