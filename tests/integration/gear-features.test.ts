@@ -25,7 +25,7 @@ const { GET: GET_COMPARE } = await import('@/app/api/v1/compare/route');
 const { POST } = await import('@/app/api/v1/gear/route');
 const { updateGearAction } = await import('@/lib/gear/actions');
 
-type U = { id: string; email: string; name: string; role: Role };
+type U = SessionUser;
 let author: U;
 let editor: U;
 

@@ -26,7 +26,7 @@ const { POST } = await import('@/app/api/v1/gear/route');
 const { GET: GET_ONE, PATCH } = await import('@/app/api/v1/gear/[slug]/route');
 const { createGearAction, updateGearAction } = await import('@/lib/gear/actions');
 
-type U = { id: string; email: string; name: string; role: Role };
+type U = SessionUser;
 let author: U;
 let editor: U;
 

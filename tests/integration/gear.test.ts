@@ -20,7 +20,7 @@ const { POST } = await import('@/app/api/v1/gear/route');
 const { PATCH } = await import('@/app/api/v1/gear/[slug]/route');
 const { createGearAction, updateGearAction } = await import('@/lib/gear/actions');
 
-type Users = Record<'author' | 'other' | 'editor' | 'reader', { id: string; email: string; name: string; role: Role }>;
+type Users = Record<'author' | 'other' | 'editor' | 'reader', SessionUser>;
 let users: Users;
 
 const count = (table: typeof gearItems | typeof specs | typeof specChanges | typeof gearPendingChanges | typeof gearRatios | typeof gearFigureNotes) =>

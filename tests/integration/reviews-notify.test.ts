@@ -20,7 +20,7 @@ const actions = await import('@/lib/reviews/actions');
 const { buildNotifications } = await import('@/lib/reviews/notify');
 
 let server: Awaited<ReturnType<typeof startCaptureServer>>;
-type U = { id: string; email: string; name: string; role: Role };
+type U = SessionUser;
 const u = {} as Record<'author' | 'editor' | 'editor2' | 'admin' | 'disabledEditor' | 'reader', U>;
 let itemId: string;
 

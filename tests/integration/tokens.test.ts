@@ -37,7 +37,7 @@ const kitOne = await import('@/app/api/v1/kits/[id]/route');
 const me = await import('@/app/api/v1/me/route');
 
 const ORIGIN = 'http://localhost:3000';
-type Users = Record<'author' | 'other' | 'editor' | 'reader' | 'admin', { id: string; email: string; name: string; role: Role }>;
+type Users = Record<'author' | 'other' | 'editor' | 'reader' | 'admin', SessionUser>;
 let u: Users;
 let file: string;
 
