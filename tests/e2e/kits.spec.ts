@@ -108,3 +108,50 @@ test('a guest builds a camp kit, sees it fail on day 3, fixes it, saves it on si
   await expect(view.getByRole('button', { name: /save/i })).toHaveCount(0);
   await other.close();
 });
+
+/*
+ * A guest's own battery and panels count in the budget (figures typed, not from the catalog):
+ *   light 5 W × 4 h = 20 Wh a day; battery 256 Wh LiFePO4 × 0.8 (common practice, no source) = 204.8 Wh usable;
+ *   panels 2 × 40 W × 5 peak sun hours × sky share 1 × (1 − 0.14) (PVWatts v5 default losses) = 344 Wh a day.
+ *   256 Wh is over 160 Wh: no passenger baggage (IATA passenger lithium battery rules).
+ */
+test('a guest’s own battery and panels count through their typed stored energy and rated power', async ({ browser }) => {
+  const guest = await browser.newContext();
+  const page = await guest.newPage();
+  await page.goto('/kits');
+  await page.getByLabel('Name', { exact: true }).fill('Own gear only');
+  await page.getByLabel('Trip length (days)').fill('3');
+  await page.getByLabel('Peak sun hours (clear day)').fill('5');
+
+  // Each entry by its position (a `.last()` locator would move on to the next entry added).
+  const addOwn = async () => {
+    const position = await page.getByTestId('kit-entry').count();
+    await page.getByRole('button', { name: 'Add your own entry' }).click();
+    return page.getByTestId('kit-entry').nth(position);
+  };
+  const light = await addOwn();
+  await light.getByLabel('Name').fill('Camp light');
+  await light.getByLabel('Draw when on (W)').fill('5');
+  await light.getByLabel('Hours a day').fill('4');
+
+  const battery = await addOwn();
+  await battery.getByLabel('Name').fill('Battery box');
+  await battery.getByLabel('What is it, for charging paths?').selectOption('storage');
+  await battery.getByLabel('Stored energy each (Wh)').fill('256');
+  await battery.getByLabel('Chemistry').selectOption('lifepo4');
+
+  const panels = await addOwn();
+  await panels.getByLabel('Name').fill('Folding panel');
+  await panels.getByLabel('Quantity').fill('2');
+  await panels.getByLabel('What is it, for charging paths?').selectOption('source');
+  await panels.getByLabel('Rated power each (W)').fill('40');
+
+  await expect(page.getByTestId('fig-load')).toHaveText('20 Wh');
+  await expect(page.getByTestId('fig-usable')).toHaveText('204.8 Wh');
+  await expect(page.getByTestId('fig-solar')).toHaveText('344 Wh');
+  await expect(page.getByTestId('budget-verdict')).toContainText('The plan closes');
+  await expect(page.locator('[data-code="airline-cargo-only"]')).toBeVisible();
+
+  await page.screenshot({ path: 'test-results/screens/kit-own-battery-panels.png', fullPage: true });
+  await guest.close();
+});
