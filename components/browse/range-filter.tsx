@@ -18,13 +18,17 @@ interface Props {
   nonNegative?: boolean;
 }
 
+const BOUNDS = [
+  { bound: 'min', words: 'at least' },
+  { bound: 'max', words: 'at most' },
+] as const;
+
 /**
  * "at least / at most" inputs for one figure, typed in the reader's display unit and sent to the API
  * in canonical units. Inputs are uncontrolled: the parent remounts this (key) when the unit changes.
  */
 export function RangeFilter({ label, typedUnit, canonicalUnit, min, max, onChange, className, nonNegative }: Props) {
-  const minId = useId();
-  const maxId = useId();
+  const ids = { min: useId(), max: useId() };
   const shownUnit = typedUnit && typedUnit !== 'ratio' ? ` (${typedUnit})` : '';
   return (
     <fieldset>
@@ -33,32 +37,21 @@ export function RangeFilter({ label, typedUnit, canonicalUnit, min, max, onChang
         {shownUnit}
       </legend>
       <div className="grid grid-cols-2 gap-2">
-        <label htmlFor={minId} className="text-xs text-slate">
-          at least
-          <input
-            id={minId}
-            type="number"
-            min={nonNegative ? 0 : undefined}
-            step="any"
-            inputMode="decimal"
-            className={className}
-            defaultValue={canonicalToTyped(min, typedUnit, canonicalUnit)}
-            onChange={(e) => onChange('min', typedToCanonical(e.target.value, typedUnit, canonicalUnit))}
-          />
-        </label>
-        <label htmlFor={maxId} className="text-xs text-slate">
-          at most
-          <input
-            id={maxId}
-            type="number"
-            min={nonNegative ? 0 : undefined}
-            step="any"
-            inputMode="decimal"
-            className={className}
-            defaultValue={canonicalToTyped(max, typedUnit, canonicalUnit)}
-            onChange={(e) => onChange('max', typedToCanonical(e.target.value, typedUnit, canonicalUnit))}
-          />
-        </label>
+        {BOUNDS.map(({ bound, words }) => (
+          <label key={bound} htmlFor={ids[bound]} className="text-xs text-slate">
+            {words}
+            <input
+              id={ids[bound]}
+              type="number"
+              min={nonNegative ? 0 : undefined}
+              step="any"
+              inputMode="decimal"
+              className={className}
+              defaultValue={canonicalToTyped(bound === 'min' ? min : max, typedUnit, canonicalUnit)}
+              onChange={(e) => onChange(bound, typedToCanonical(e.target.value, typedUnit, canonicalUnit))}
+            />
+          </label>
+        ))}
       </div>
     </fieldset>
   );

@@ -144,6 +144,15 @@ function PortRow({ id, value, onChange, fixedDirection, cable, legend, onRemove 
 type Form = { control: Control<KitFormValues, unknown, KitInput>; errors: FieldErrors<KitFormValues> };
 
 /** A free-form entry's part in charging paths: its role and its ports (or, for a cable or adapter, its two ends). */
+/** A decimal box whose text the parent keeps (so a role change can clear it) and whose number goes to the form. */
+function DecimalField({ id, label, hint, errors, text, max, onText }: { id: string; label: string; hint: string; errors: string[]; text: string; max?: string; onText: (text: string) => void }) {
+  return (
+    <Field id={id} label={label} hint={hint} errors={errors.length ? errors : undefined}>
+      <TextInput id={id} type="number" step="any" min="0" max={max} inputMode="decimal" value={text} invalid={errors.length > 0} onChange={(e) => onText(e.target.value)} />
+    </Field>
+  );
+}
+
 export function FreePowerFields({ index, form }: { index: number; form: Form }) {
   const role = useController({ control: form.control, name: `entries.${index}.freeRole` });
   const ports = useController({ control: form.control, name: `entries.${index}.freePorts` });
@@ -206,72 +215,46 @@ export function FreePowerFields({ index, form }: { index: number; form: Form }) 
         <>
           <PortRow id={`${id}.freePorts.0`} legend="End that plugs into a power output" value={rows[0] ?? toText({ direction: 'input' })} fixedDirection="input" cable={current === 'cable'} onChange={(t) => push([t, rows[1] ?? toText({ direction: 'output' })])} />
           <PortRow id={`${id}.freePorts.1`} legend="End that feeds a device or battery" value={rows[1] ?? toText({ direction: 'output' })} fixedDirection="output" cable={current === 'cable'} onChange={(t) => push([rows[0] ?? toText({ direction: 'input' }), t])} />
-          <Field
+          <DecimalField
             id={`${id}.freeEfficiency`}
             label={current === 'adapter' ? 'Efficiency (0–1)' : 'Efficiency (0–1, optional)'}
             hint={current === 'adapter' ? 'Share of the power that comes out, from the maker; 0.85 to 0.9 is common for 12 V USB chargers (common practice, no source).' : 'Empty = 1: a short cable loses little.'}
-            errors={effErrors.length ? effErrors : undefined}
-          >
-            <TextInput
-              id={`${id}.freeEfficiency`}
-              type="number"
-              step="any"
-              min="0"
-              max="1"
-              inputMode="decimal"
-              value={effText}
-              onChange={(e) => {
-                setEffText(e.target.value);
-                efficiency.field.onChange(num(e.target.value));
-              }}
-            />
-          </Field>
+            errors={effErrors}
+            text={effText}
+            max="1"
+            onText={(text) => {
+              setEffText(text);
+              efficiency.field.onChange(num(text));
+            }}
+          />
         </>
       ) : current ? (
         <>
           {current === 'storage' ? (
-            <Field
+            <DecimalField
               id={`${id}.freeEnergyWh`}
               label="Stored energy each (Wh)"
               hint="As on its label (Wh, or mAh × V ÷ 1000). Counts in the power budget; empty = left out of it."
-              errors={energyErrors.length ? energyErrors : undefined}
-            >
-              <TextInput
-                id={`${id}.freeEnergyWh`}
-                type="number"
-                step="any"
-                min="0"
-                inputMode="decimal"
-                value={energyText}
-                invalid={energyErrors.length > 0}
-                onChange={(e) => {
-                  setEnergyText(e.target.value);
-                  energy.field.onChange(num(e.target.value));
-                }}
-              />
-            </Field>
+              errors={energyErrors}
+              text={energyText}
+              onText={(text) => {
+                setEnergyText(text);
+                energy.field.onChange(num(text));
+              }}
+            />
           ) : null}
           {current === 'source' ? (
-            <Field
+            <DecimalField
               id={`${id}.freeRatedW`}
               label="Rated power each (W)"
               hint="In full sun, as on its label. Counts in the power budget with the kit’s peak sun hours; empty = left out of it."
-              errors={ratedErrors.length ? ratedErrors : undefined}
-            >
-              <TextInput
-                id={`${id}.freeRatedW`}
-                type="number"
-                step="any"
-                min="0"
-                inputMode="decimal"
-                value={ratedText}
-                invalid={ratedErrors.length > 0}
-                onChange={(e) => {
-                  setRatedText(e.target.value);
-                  ratedW.field.onChange(num(e.target.value));
-                }}
-              />
-            </Field>
+              errors={ratedErrors}
+              text={ratedText}
+              onText={(text) => {
+                setRatedText(text);
+                ratedW.field.onChange(num(text));
+              }}
+            />
           ) : null}
           {rows.map((r, j) => (
             <PortRow
