@@ -3,7 +3,9 @@
  * profiles are the usual fixed voltages (5, 9, 12, 15, 20 V) at currents within 3 A, or 3.25 A for a
  * 65 W port (which needs a 5 A cable); 12 V LiFePO4 batteries at 12.8 V nominal.
  *
- * Items that run only on replaceable cells (the two AA lights) have no ports.
+ * The two lights that run on replaceable AA cells list their cell holder as an `other` input (1.5 V per
+ * alkaline AA cell, IEC 60086-2 LR6 nominal voltage, from memory): nothing in a kit joins it, so the planner says
+ * plainly that no source can charge them, which is true in camp (they need spare cells).
  *
  * In the base-camp kit the lanterns have a charging path (battery 12 V socket → 12 V-to-USB-C adapter
  * → lantern), while the mobile radio's genderless DC input has none: the kit holds no lead from the
@@ -32,6 +34,8 @@ const usbAOut = (amps: number, efficiency = 0.88): DemoPort => ({ kind: 'usb-a',
 
 export const DEMO_PORTS: Readonly<Record<string, readonly DemoPort[]>> = {
   // Lights
+  'dunlow-bothy-aa-lantern': [{ kind: 'other', direction: 'input', volts: 6, label: 'AA cell holder (4 × AA)' }],
+  'dunlow-trailwarden-torch': [{ kind: 'other', direction: 'input', volts: 3, label: 'AA cell holder (2 × AA)' }],
   'glowmere-hearthglow-400': [usbCIn(2, 10), { ...usbAOut(1, 0.85), label: 'phone top-up' }],
   // Also serves as a power bank (db/seed/features.ts): a USB-A output for a phone top-up.
   'northcairn-tarn-collapsible-lantern': [usbCIn(2, 10), { ...usbAOut(1, 0.85), label: 'phone top-up' }],
@@ -104,9 +108,6 @@ export const DEMO_PORTS: Readonly<Record<string, readonly DemoPort[]>> = {
   'dunlow-coolcrate-25': [{ kind: 'socket-12v', direction: 'input', volts: 12, amps: 4, watts: 45, voltageWindow: { minVolts: 10.4, maxVolts: 15 } }],
   'glowmere-eddy-tent-fan': [usbCIn(2, 10)],
 };
-
-/** Demo items that have no ports on purpose (replaceable AA cells only). */
-export const DEMO_ITEMS_WITHOUT_PORTS: readonly string[] = ['dunlow-bothy-aa-lantern', 'dunlow-trailwarden-torch'];
 
 type Q = Pick<Db, 'select' | 'insert'>;
 
