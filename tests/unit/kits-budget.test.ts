@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { catalogItem } from '../support/kit-catalog-item';
 import {
   COMMON_PRACTICE_SKY_SHARE,
   kitBudget,
@@ -9,7 +10,6 @@ import {
   suggestSkyShare,
   UNPUBLISHED_ITEM,
   type KitCatalog,
-  type KitCatalogItem,
   type KitEntryInput,
 } from '@/lib/kits';
 
@@ -20,19 +20,7 @@ import {
  * solar = rated W × qty × peak sun hours × sky share × (1 − losses), losses 0.14 (PVWatts v5 default,
  * NREL/TP-6A20-62641, rounded); each day min(capacity, max(0, previous − draw + solar)).
  */
-const item = (id: string, partial: Partial<KitCatalogItem>): KitCatalogItem => ({
-  id,
-  slug: id,
-  name: id,
-  maker: 'Testmaker',
-  category: 'other',
-  chemistry: null,
-  priceMinor: null,
-  priceCurrency: null,
-  specs: [],
-  pairedSkyShares: [],
-  ...partial,
-});
+const item = catalogItem;
 
 const catalog: KitCatalog = {
   lantern: item('lantern', {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { catalogItem } from '../support/kit-catalog-item';
 import { findChargingPaths } from '@/lib/measure';
-import { gathersSolar, kitBudget, kitChargingPaths, kitPowerItems, kitRoles, kitTotals, storesEnergy, storesEnergyAsSecondRole, type KitCatalog, type KitCatalogItem, type KitEntryInput } from '@/lib/kits';
+import { gathersSolar, kitBudget, kitChargingPaths, kitPowerItems, kitRoles, kitTotals, storesEnergy, storesEnergyAsSecondRole, type KitCatalog, type KitEntryInput } from '@/lib/kits';
 
 /*
  * Multi-role gear in kits (issue 9): an item that also serves as a power bank or 12 V battery counts its
@@ -9,19 +10,7 @@ import { gathersSolar, kitBudget, kitChargingPaths, kitPowerItems, kitRoles, kit
  * Li-ion default depth of discharge 0.8: common practice, no source (check-values §5).
  * Path efficiency = product of the steps' efficiencies (lib/measure/README.md "Charging paths").
  */
-const item = (id: string, partial: Partial<KitCatalogItem>): KitCatalogItem => ({
-  id,
-  slug: id,
-  name: id,
-  maker: 'Testmaker',
-  category: 'other',
-  chemistry: null,
-  priceMinor: null,
-  priceCurrency: null,
-  specs: [],
-  pairedSkyShares: [],
-  ...partial,
-});
+const item = catalogItem;
 
 const lantern = item('lantern', {
   name: 'Lantern',

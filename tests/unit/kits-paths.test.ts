@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { catalogItem } from '../support/kit-catalog-item';
 import {
   catalogPowerRole,
   kitBudget,
@@ -19,19 +20,7 @@ import {
  * USB PD levels: check-values §7 (USB PD Standard Power Range at 3 A: 5, 9, 15, 20 V → 15, 27, 45, 60 W).
  * A 12 V input takes 12.8 V: the ±10 % nominal tolerance is Trailbench's own convention (no source).
  */
-const item = (id: string, partial: Partial<KitCatalogItem>): KitCatalogItem => ({
-  id,
-  slug: id,
-  name: id,
-  maker: 'Testmaker',
-  category: 'other',
-  chemistry: null,
-  priceMinor: null,
-  priceCurrency: null,
-  specs: [],
-  pairedSkyShares: [],
-  ...partial,
-});
+const item = catalogItem;
 
 const catalog: KitCatalog = {
   usbaBank: item('usbaBank', {
