@@ -5,9 +5,10 @@
  */
 import { and, asc, desc, eq, inArray } from 'drizzle-orm';
 import type { Db } from './connection';
-import { fieldTestItems, fieldTests, fieldTestStateEvents, gearItems, gearStateEvents, reviewRevisions, reviews, reviewStateEvents, users } from './schema';
+import { fieldTestItems, fieldTests, fieldTestStateEvents, gearItems, gearStateEvents, reviewRevisions, reviews, reviewStateEvents } from './schema';
 import type { DeskKind } from '@/lib/reviews/schemas';
 import { longTermNoteDeskRows } from './long-term-notes';
+import { userNamesById } from './users';
 
 export interface DeskRow {
   kind: DeskKind;
@@ -30,17 +31,6 @@ export interface DeskFilters {
   kind?: DeskKind;
 }
 
-function names(db: Db, ids: string[]): Map<string, string> {
-  if (ids.length === 0) return new Map();
-  return new Map(
-    db
-      .select({ id: users.id, name: users.name })
-      .from(users)
-      .where(inArray(users.id, [...new Set(ids)]))
-      .all()
-      .map((u) => [u.id, u.name]),
-  );
-}
 
 function reviewRows(db: Db): DeskRow[] {
   const revs = db.select().from(reviewRevisions).orderBy(asc(reviewRevisions.number)).all();
@@ -61,7 +51,7 @@ function reviewRows(db: Db): DeskRow[] {
       .all()
       .map((r) => [r.id, r]),
   );
-  const who = names(db, [...reviewInfo.values()].map((r) => r.authorId));
+  const who = userNamesById(db, [...reviewInfo.values()].map((r) => r.authorId));
   return waiting.map((rev) => {
     const review = reviewInfo.get(rev.reviewId)!;
     const since =
@@ -88,7 +78,7 @@ function reviewRows(db: Db): DeskRow[] {
 
 function gearRows(db: Db): DeskRow[] {
   const items = db.select().from(gearItems).where(eq(gearItems.status, 'in-review')).all();
-  const who = names(
+  const who = userNamesById(
     db,
     items.map((i) => i.ownerId),
   );
@@ -117,7 +107,7 @@ function gearRows(db: Db): DeskRow[] {
 function fieldTestRows(db: Db): DeskRow[] {
   const tests = db.select().from(fieldTests).where(eq(fieldTests.status, 'in-review')).all();
   if (tests.length === 0) return [];
-  const who = names(
+  const who = userNamesById(
     db,
     tests.map((t) => t.ownerId),
   );

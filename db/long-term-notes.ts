@@ -15,11 +15,12 @@
  * synchronous `behavior: 'immediate'` transaction.
  */
 import { randomUUID } from 'node:crypto';
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import type { Db } from './connection';
 import { fieldTestItems, fieldTests, gearItems, longTermNotes, longTermNoteStateEvents, users, type GearItem, type LongTermNote, type RecordState } from './schema';
 import { findVisibleGear, isPublicGear, type Actor } from './gear';
 import type { DeskRow } from './desk';
+import { userNamesById } from './users';
 import { hasRole } from '@/lib/auth/roles';
 import { AppError } from '@/lib/http/errors';
 import { zodFieldErrors } from '@/lib/http/api';
@@ -186,22 +187,11 @@ export interface LongTermNoteEvent {
   at: Date;
 }
 
-function authorNames(db: Q, ids: string[]): Map<string, string> {
-  if (ids.length === 0) return new Map();
-  return new Map(
-    db
-      .select({ id: users.id, name: users.name })
-      .from(users)
-      .where(inArray(users.id, [...new Set(ids)]))
-      .all()
-      .map((u) => [u.id, u.name]),
-  );
-}
 
 type ItemHead = Pick<GearItem, 'slug' | 'name' | 'maker' | 'approvedAt'>;
 
 function toViews(db: Q, rows: { note: LongTermNote; item: ItemHead }[]): LongTermNoteView[] {
-  const names = authorNames(
+  const names = userNamesById(
     db,
     rows.map((r) => r.note.authorId),
   );

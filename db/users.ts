@@ -1,9 +1,22 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { randomUUID } from 'node:crypto';
 import type { Db } from './connection';
 import { authEvents, roleChanges, users, type Role, type User } from './schema';
 
 export type PublicUser = Pick<User, 'id' | 'email' | 'name' | 'role' | 'disabledAt' | 'createdAt' | 'isDemo'>;
+
+/** Display names of the given users by id (the desk and notes show who wrote what). */
+export function userNamesById(db: Pick<Db, 'select'>, ids: readonly string[]): Map<string, string> {
+  if (ids.length === 0) return new Map();
+  return new Map(
+    db
+      .select({ id: users.id, name: users.name })
+      .from(users)
+      .where(inArray(users.id, [...new Set(ids)]))
+      .all()
+      .map((u) => [u.id, u.name]),
+  );
+}
 
 export function findUserByEmail(db: Db, email: string): User | undefined {
   return db.select().from(users).where(eq(users.email, email.toLowerCase())).get();
